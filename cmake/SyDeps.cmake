@@ -1,0 +1,11 @@
+# Collects every dependency into SY_DEP_TARGETS; one file per dependency below.
+find_package(PkgConfig REQUIRED)
+set(SY_DEP_TARGETS)
+include(SyGSL)
+include(SyLapacke)
+include(SyNetCDF)
+include(SyCsv)
+include(SyInih)
+include(SyJansson)
+include(SyArb)
+include(SyOpenMP)

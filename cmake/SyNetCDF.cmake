@@ -1,0 +1,3 @@
+# NetCDF-C: climate tables, hindcasts, hydrodynamic database, power matrices.
+include(SyLib)
+sy_find_pc(NETCDF netcdf libnetcdf-dev)

@@ -1,0 +1,10 @@
+# OpenMP (optional): threads across frequencies in src/array/sweep.c only.
+set(SY_HAVE_OPENMP 0)
+if(SY_WITH_OPENMP)
+  find_package(OpenMP COMPONENTS C)
+  if(OpenMP_C_FOUND)
+    set(SY_HAVE_OPENMP 1)
+    list(APPEND SY_DEP_TARGETS OpenMP::OpenMP_C)
+  endif()
+endif()
+set(SY_HAVE_MPI 0)
