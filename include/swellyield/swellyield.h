@@ -2,4 +2,7 @@
 #ifndef SWELLYIELD_H
 #define SWELLYIELD_H
 #include "swellyield/core.h"
+#include "swellyield/waves.h"
+#include "swellyield/special.h"
+#include "swellyield/body.h"
 #endif
