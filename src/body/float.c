@@ -12,13 +12,13 @@ static void plan_free(sy_body_plan *plan)
     plan->impl = NULL;
 }
 
-static int plan_init_forced(sy_body_plan *plan, size_t P, size_t Qx, sy_error *err)
+static int plan_init_forced(sy_body_plan *plan, size_t P, int P2, size_t Qx, sy_error *err)
 {
     syi_float_plan *fp = calloc(1, sizeof *fp);
     if (fp == NULL)
         return sy_error_set(err, SY_ENOMEM, "float plan");
     plan->impl = fp;
-    int rc = syi_float_plan_build(fp, plan, P, Qx, err);
+    int rc = syi_float_plan_build(fp, plan, P, Qx, P2, err);
     if (rc != SY_OK) {
         sy_error_prefix(err, "float plan (a = %g m, d = %g m, h = %g m)", plan->geom.radius,
                         plan->geom.draft, plan->h);
@@ -28,10 +28,10 @@ static int plan_init_forced(sy_body_plan *plan, size_t P, size_t Qx, sy_error *e
     return SY_OK;
 }
 
-static int plan_init(sy_body_plan *plan, sy_error *err) { return plan_init_forced(plan, 0, 0, err); }
+static int plan_init(sy_body_plan *plan, sy_error *err) { return plan_init_forced(plan, 0, -1, 0, err); }
 
 int syi_body_float_plan_create(sy_body_plan **out, const sy_body_geometry *geom, double h,
-                               size_t P, size_t Qx, size_t n_order, size_t n_depth,
+                               size_t P, int P2, size_t Qx, size_t n_order, size_t n_depth,
                                sy_error *err)
 {
     /* validate through the public path (a plan at the default truncation is cheap to
@@ -49,7 +49,7 @@ int syi_body_float_plan_create(sy_body_plan **out, const sy_body_geometry *geom,
     p->tolerance = 0.0;
     p->n_order = n_order;
     p->n_depth = n_depth;
-    rc = plan_init_forced(p, P, Qx, err);
+    rc = plan_init_forced(p, P, P2, Qx, err);
     if (rc != SY_OK) {
         sy_body_plan_free(p);
         return rc;
@@ -87,7 +87,7 @@ static int work_init(sy_body_work *work, const sy_body_plan *plan, sy_error *err
     if (w == NULL)
         return sy_error_set(err, SY_ENOMEM, "float work");
     work->impl = w;
-    size_t M1 = fp->M + 1, Q = fp->Q, L = fp->L, n = fp->P[1] + 1;
+    size_t M1 = fp->M + 1, Q = fp->Q, L = fp->L, n = fp->PG + 1;
     size_t qs = Q > 0 ? Q : 1;
     w->nq = fp->Qx[1] + 1;
     w->ncol = Q + 2;

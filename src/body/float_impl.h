@@ -7,6 +7,9 @@
  * Gap basis (edge-weighted Gegenbauer, nu = 1/6, even about the seabed t = 0):
  *   f_p(t) = (2 / gamma_p) (1 - t^2)^(-1/3) C_{2p}^{(1/6)}(t),  p = 0..P-1,
  * normalised so that int_0^1 f_p(t) cos(x t) dt = (-1)^p x^(-nu) J_{2p+nu}(x).
+ * A second family with nu2 = 5/6, (1 - t^2)^(+1/3) C_{2p}^{(5/6)}(t), carries the next
+ * corner term (velocity ~ (1 - t)^(+1/3), the 270-degree corner's second eigen-solution);
+ * the gap functions are indexed l = 0..PG-1 with family order nu_l and index ord_l.
  * Wall functions, extended into the gap by their corner value so that the Galerkin part
  * carries only the singular and higher corner terms: w_1 = 1 on -h < z < 0 and
  * w_z = max(z, -d). A radiation profile's velocity on r = a is v_1 w_1 + v_z w_z +
@@ -21,15 +24,21 @@
 
 #define SYI_PI 3.14159265358979323846
 #define SYI_FLOAT_NU (1.0 / 6.0)   /* Gegenbauer index: weight (1 - t^2)^(nu - 1/2) */
-#define SYI_FLOAT_PMAX 16          /* largest number of gap functions a plan may use */
+#define SYI_FLOAT_NU2 (5.0 / 6.0)  /* second family: weight (1 - t^2)^(+1/3) */
+#define SYI_FLOAT_PMAX 24          /* largest number of gap functions a plan may use */
 #define SYI_FLOAT_LEVELS 2         /* truncation levels solved per frequency: 0 coarse, 1 fine */
 
 typedef struct syi_float_plan {
     double a, d, h, b, z_rot;
     size_t M, Q;                   /* output orders 0..M, depth modes 0..Q-1 */
     size_t P[SYI_FLOAT_LEVELS];    /* gap functions per level */
+    size_t gidx[SYI_FLOAT_LEVELS][SYI_FLOAT_PMAX]; /* their basis indices l */
+    size_t PG;                     /* gap functions in the basis (fine level) */
+    double nu_l[SYI_FLOAT_PMAX];   /* family order of gap function l */
+    int ord_l[SYI_FLOAT_PMAX];     /* p of gap function l within its family */
+    size_t nfam[2];                /* functions per family */
     size_t Qx[SYI_FLOAT_LEVELS];   /* exterior evanescent modes summed per level */
-    size_t L;                      /* P[1] + 2: basis size for orders m <= 1 */
+    size_t L;                      /* PG + 2: basis size for orders m <= 1 (walls PG, PG+1) */
     double m0[SYI_FLOAT_PMAX];     /* int_0^1 f_p dt */
     double m2[SYI_FLOAT_PMAX];     /* int_0^1 t^2 f_p dt */
     /* Interior (r < a) sums, omega independent, for m = 0..M:
@@ -71,13 +80,14 @@ typedef struct syi_float_work {
 /* float_plan.c */
 /* P_force, Qx_force: 0 = choose from plan->tolerance, else force that truncation. */
 int syi_float_plan_build(syi_float_plan *fp, const sy_body_plan *plan, size_t P_force,
-                         size_t Qx_force, sy_error *err);
+                         size_t Qx_force, int P2_force, sy_error *err);
 void syi_float_plan_release(syi_float_plan *fp);
 
-/* float.c: a float plan with forced truncation (P gap functions, Qx exterior modes at
- * the fine level), for convergence studies and tests; otherwise as sy_body_plan_create. */
+/* float.c: a float plan with forced truncation (P first-family and P2 second-family gap
+ * functions, Qx exterior modes at the fine level; P2 < 0: default), for convergence
+ * studies and tests; otherwise as sy_body_plan_create. */
 int syi_body_float_plan_create(sy_body_plan **out, const sy_body_geometry *geom, double h,
-                               size_t P, size_t Qx, size_t n_order, size_t n_depth,
+                               size_t P, int P2, size_t Qx, size_t n_order, size_t n_depth,
                                sy_error *err);
 
 /* float_solve.c */
@@ -85,9 +95,9 @@ int syi_float_solve(const sy_body_plan *plan, const sy_wave_roots *roots, double
                     syi_float_work *w, sy_body_waves *out, sy_error *err);
 
 /* Shared small helpers (float_plan.c). */
-/* Unnormalised projections at wavenumber k (evanescent form cos(k (z + h))): gap
- * functions l < P into g[0..P-1], then w_1, w_z when nw = 2. x^(-nu) J_mu(x), x = k b. */
-int syi_float_proj_cos(const syi_float_plan *fp, size_t P, size_t nw, double complex k,
+/* Unnormalised projections at wavenumber k (evanescent form cos(k (z + h))): the PG gap
+ * functions into g[0..PG-1], then w_1, w_z when nw = 2. b (-1)^p x^(-nu) J_mu(x), x = k b. */
+int syi_float_proj_cos(const syi_float_plan *fp, size_t nw, double complex k,
                        double complex *g, sy_error *err);
 /* Small dense complex solve with partial pivoting, n <= 17, ncol right-hand sides
  * stored row-major rhs[i * ncol + c]. Overwrites mat. SY_ESINGULAR on a zero pivot. */

@@ -39,19 +39,17 @@
  * sum and the fit removes it to O(J^(-10/3)) ~ 1e-12 at J = 4096. */
 #define J_INT 4096
 /* Reference exterior terms summed directly: leading smooth tail added analytically,
- * the rest is O(Q_REF^(-4/3) / (Q_REF pi b / h)) ~ 1e-10 relative; oscillating parts
+ * the rest is O(Q_REF^(-4/3) / (Q_REF pi b / h)) ~ 1e-8 relative; oscillating parts
  * O(Q_REF^(-7/3)). */
-#define Q_REF 8192
+#define Q_REF 2048
 
-/* Direct evaluation of b (-1)^p x^(-nu) J_{2p+nu}(x), or with cosh modes x^(-nu) I(x). */
-int syi_float_proj_cos(const syi_float_plan *fp, size_t P, size_t nw, double complex k,
-                       double complex *g, sy_error *err)
+/* One family: g[i] = b (-1)^i x^(-nu) J_{nu+2i}(x), i < n. */
+static int family_cos(double nu, size_t n, double b, double complex x, double complex *g,
+                      sy_error *err)
 {
-    const double nu = SYI_FLOAT_NU;
-    double complex x = k * fp->b;
     double complex xm = cpow(x, -nu);
     int rc = SY_OK;
-    if (cabs(x) > 2.0 * (double)P + 4.0) {
+    if (cabs(x) > 2.0 * (double)n + 4.0) {
         /* Upward recurrence J_{mu+1} = (2 mu / x) J_mu - J_{mu-1} is stable for mu < |x|
          * (DLMF 10.6.1); only orders nu and nu + 1 are evaluated. */
         double complex jm, jp;
@@ -61,24 +59,34 @@ int syi_float_proj_cos(const syi_float_plan *fp, size_t P, size_t nw, double com
         if (rc != SY_OK)
             return rc;
         double mu = nu + 1.0;
-        for (size_t p = 0; p < P; p++) {
-            g[p] = fp->b * ((p % 2) ? -1.0 : 1.0) * xm * jm;
-            /* advance two orders: mu -> mu + 2 */
-            double complex j2 = 2.0 * mu / x * jp - jm;
+        for (size_t p = 0; p < n; p++) {
+            g[p] = b * ((p % 2) ? -1.0 : 1.0) * xm * jm;
+            double complex j2 = 2.0 * mu / x * jp - jm;    /* advance mu -> mu + 2 */
             double complex j3 = 2.0 * (mu + 1.0) / x * j2 - jp;
             jm = j2;
             jp = j3;
             mu += 2.0;
         }
-    } else {
-        for (size_t p = 0; p < P && rc == SY_OK; p++) {
-            double complex jv;
-            rc = sy_special_besselj_nu(nu + 2.0 * (double)p, x, &jv, err);
-            g[p] = fp->b * ((p % 2) ? -1.0 : 1.0) * xm * jv;
-        }
-        if (rc != SY_OK)
-            return rc;
+        return SY_OK;
     }
+    for (size_t p = 0; p < n && rc == SY_OK; p++) {
+        double complex jv;
+        rc = sy_special_besselj_nu(nu + 2.0 * (double)p, x, &jv, err);
+        g[p] = b * ((p % 2) ? -1.0 : 1.0) * xm * jv;
+    }
+    return rc;
+}
+
+int syi_float_proj_cos(const syi_float_plan *fp, size_t nw, double complex k,
+                       double complex *g, sy_error *err)
+{
+    double complex x = k * fp->b;
+    int rc = family_cos(SYI_FLOAT_NU, fp->nfam[0], fp->b, x, g, err);
+    if (rc == SY_OK && fp->nfam[1] > 0)
+        rc = family_cos(SYI_FLOAT_NU2, fp->nfam[1], fp->b, x, g + fp->nfam[0], err);
+    if (rc != SY_OK)
+        return rc;
+    size_t P = fp->PG;
     if (nw == 2) {
         /* int_{-h}^0 cos(k (z+h)) dz and int_{-h}^0 max(z, -d) cos(k (z+h)) dz */
         g[P] = csin(k * fp->h) / k;
@@ -167,7 +175,7 @@ static double fitted_tail(const double t[3], double s, double J)
 /* Interior sums for order m (see float_impl.h). */
 static int interior(syi_float_plan *fp, size_t m, sy_error *err)
 {
-    const size_t P = fp->P[1], L = fp->L;
+    const size_t P = fp->PG, L = fp->L;
     const double a = fp->a, b = fp->b;
     const int j0 = (m == 0) ? 1 : 0;
     double *sint = fp->sint + m * L * L;
@@ -206,7 +214,7 @@ static int interior(syi_float_plan *fp, size_t m, sy_error *err)
             double r1 = creal(ib[m + 1]) / creal(ib[m]);     /* I_{m+1}/I_m */
             double ihp = lam * (r1 + (double)m / x);          /* I_m'/I_m * lam */
             w = 2.0 / (b * ihp);
-            rc = syi_float_proj_cos(fp, P, 0, lam, g, err);
+            rc = syi_float_proj_cos(fp, 0, lam, g, err);
             if (rc != SY_OK)
                 return rc;
             for (size_t p = 0; p < P; p++)
@@ -254,15 +262,18 @@ static int interior(syi_float_plan *fp, size_t m, sy_error *err)
         for (size_t pp = 0; pp < Lm; pp++) {
             size_t i = p * L + pp;
             double t[3] = {tS[0][i], tS[1][i], tS[2][i]};
-            sint[i] += fitted_tail(t, 7.0 / 3.0, J_INT);
+            /* G_lj ~ j^(-nu_l - 1/2), 1/(M_j Ihat'_j) ~ 1/j (wall entries vanish, j >= 1) */
+            double nl = p < P ? fp->nu_l[p] : 0.0, nlp = pp < P ? fp->nu_l[pp] : 0.0;
+            sint[i] += fitted_tail(t, 2.0 + nl + nlp, J_INT);
         }
     if (m <= 1)
         for (size_t p = 0; p < L; p++) {
             double t[3] = {tBG[0][p], tBG[1][p], tBG[2][p]};
-            bg[p] += fitted_tail(t, 8.0 / 3.0, J_INT);
+            double nl = p < P ? fp->nu_l[p] : 0.0;
+            bg[p] += fitted_tail(t, 2.5 + nl, J_INT);
             if (m == 1) {
                 double u[3] = {tPI[0][p], tPI[1][p], tPI[2][p]};
-                fp->pint_pitch[p] += fitted_tail(u, 11.0 / 3.0, J_INT);
+                fp->pint_pitch[p] += fitted_tail(u, 3.5 + nl, J_INT);
             }
         }
     if (m == 1)
@@ -274,7 +285,7 @@ static int interior(syi_float_plan *fp, size_t m, sy_error *err)
  * cancels), for all m = 0..M at once into e[(m L + l) L + l']. Real k. */
 static int eref(const syi_float_plan *fp, double k, double *e, sy_error *err)
 {
-    const size_t P = fp->P[1], L = fp->L, M = fp->M;
+    const size_t P = fp->PG, L = fp->L, M = fp->M;
     double complex g[SYI_FLOAT_PMAX + 2], kb[SYI_FLOAT_PMAX + 64];
     double complex *kv = kb;
     double complex *heap = NULL;
@@ -284,7 +295,7 @@ static int eref(const syi_float_plan *fp, double k, double *e, sy_error *err)
             return sy_error_set(err, SY_ENOMEM, "float plan scratch");
         kv = heap;
     }
-    int rc = syi_float_proj_cos(fp, P, 2, k, g, err);
+    int rc = syi_float_proj_cos(fp, 2, k, g, err);
     if (rc == SY_OK)
         rc = sy_special_besselk_scaled_array((int)M + 1, k * fp->a, kv, err);
     if (rc != SY_OK) {
@@ -311,12 +322,14 @@ static int eref(const syi_float_plan *fp, double k, double *e, sy_error *err)
  * returns coefficient c and power s with E ~ c k^-s. */
 static void smooth_coef(const syi_float_plan *fp, size_t l, size_t lp, double *c, double *s)
 {
-    const size_t P = fp->P[1];
+    const size_t P = fp->PG;
     const double b = fp->b, h = fp->h;
     int gl = l < P, glp = lp < P;
-    if (gl && glp) {          /* gap-gap: -(2 b^2/(pi h)) b^(-4/3) k^(-7/3) */
-        *c = -2.0 * b * b / (SYI_PI * h) * pow(b, -4.0 / 3.0);
-        *s = 7.0 / 3.0;
+    if (gl && glp) {
+        /* gap-gap: -(2 b^2/(pi h)) cos((nu - nu') pi/2) b^(-nu-nu'-1) k^(-2-nu-nu') */
+        double n1 = fp->nu_l[l], n2 = fp->nu_l[lp];
+        *c = -2.0 * b * b / (SYI_PI * h) * cos((n1 - n2) * SYI_PI / 2.0) * pow(b, -n1 - n2 - 1.0);
+        *s = 2.0 + n1 + n2;
     } else {
         /* extended wall functions: w_1 is orthogonal to every cos(q pi (z+h)/h), and
          * w_z is continuous, so its projections are O(k^-2): tails O(Q_REF^(-8/3)) */
@@ -372,7 +385,7 @@ static int exterior_reference(syi_float_plan *fp, sy_error *err)
     if (rc == SY_OK) {
         /* analytic smooth tail beyond Q_REF: sum_{q > Q_REF} (q pi / h)^-s */
         for (size_t m = 0; m <= M; m++) {
-            size_t Lm = (m <= 1) ? L : fp->P[1];
+            size_t Lm = (m <= 1) ? L : fp->PG;
             for (size_t l = 0; l < Lm; l++)
                 for (size_t lp = 0; lp < Lm; lp++) {
                     double c, s;
@@ -390,7 +403,7 @@ static int exterior_reference(syi_float_plan *fp, sy_error *err)
 }
 
 int syi_float_plan_build(syi_float_plan *fp, const sy_body_plan *plan, size_t P_force,
-                         size_t Qx_force, sy_error *err)
+                         size_t Qx_force, int P2_force, sy_error *err)
 {
     const double nu = SYI_FLOAT_NU;
     fp->a = plan->geom.radius;
@@ -400,16 +413,15 @@ int syi_float_plan_build(syi_float_plan *fp, const sy_body_plan *plan, size_t P_
     fp->z_rot = plan->geom.z_rot;
     fp->M = plan->n_order > 1 ? plan->n_order : 1;   /* orders 0, 1 carry the radiation */
     fp->Q = plan->n_depth;
-    /* Truncation from the tolerance (measured in docs/hydro-convergence.md): the fine
-     * level converges like P^-4 (variational) in the gap functions and the exterior tail
-     * after the second-order reference correction like Qx^(-10/3). */
+    /* Truncation from the tolerance (measured in docs/hydro-convergence.md). With both
+     * corner families the Galerkin part converges fast: 4 + 2 functions give ~1e-8,
+     * 6 + 2 ~1e-10 relative in A and B; larger sets only add round-off (the two families
+     * are nearly dependent). The exterior tail after the second-order reference
+     * correction falls like Qx^(-10/3) times (2 b K / pi)^3, so Qx grows with the digits
+     * asked for and the error estimate watches the high-frequency end. */
     double digits = -log10(plan->tolerance > 0.0 ? plan->tolerance : 1e-6);
-    size_t P1 = (size_t)ceil(digits) + 4;
-    if (P1 < 4)
-        P1 = 4;
-    if (P1 > SYI_FLOAT_PMAX)
-        P1 = SYI_FLOAT_PMAX;
-    size_t Q1 = (size_t)ceil(4.0 * digits);
+    size_t P1 = digits <= 4.0 ? 4 : digits <= 7.0 ? 5 : digits <= 10.0 ? 7 : 8;
+    size_t Q1 = (size_t)ceil(8.0 * digits);
     if (Q1 < 16)
         Q1 = 16;
     if (Q1 < fp->Q)
@@ -420,17 +432,39 @@ int syi_float_plan_build(syi_float_plan *fp, const sy_body_plan *plan, size_t P_
         Q1 = Qx_force < fp->Q ? fp->Q : Qx_force;
     if (Q1 < 2)
         Q1 = 2;
-    fp->P[1] = P1;
-    fp->P[0] = P1 - 2;
+    /* second family: two functions carry the (1 - t)^(1/3) corner term */
+    size_t P2 = 2;
+    if (P2_force >= 0)
+        P2 = (size_t)P2_force;
+    if (P1 + P2 > SYI_FLOAT_PMAX)
+        P2 = SYI_FLOAT_PMAX - P1;
+    fp->nfam[0] = P1;
+    fp->nfam[1] = P2;
+    fp->PG = P1 + P2;
+    for (size_t l = 0; l < fp->PG; l++) {
+        fp->nu_l[l] = l < P1 ? nu : SYI_FLOAT_NU2;
+        fp->ord_l[l] = (int)(l < P1 ? l : l - P1);
+    }
+    /* fine level: all; coarse level: one fewer of the first family (and Qx / 2) */
+    fp->P[1] = fp->PG;
+    fp->P[0] = 0;
+    for (size_t l = 0; l < fp->PG; l++) {
+        fp->gidx[1][l] = l;
+        if (l + 1 < P1 || l >= P1)
+            fp->gidx[0][fp->P[0]++] = l;
+    }
     fp->Qx[1] = Q1;
     fp->Qx[0] = Q1 / 2;
-    fp->L = P1 + 2;
-    for (size_t p = 0; p < P1; p++)
-        fp->m0[p] = fp->m2[p] = 0.0;
-    /* moments from the small-x series of x^-nu J_{2p+nu}(x) (DLMF 10.2.2) */
-    fp->m0[0] = pow(2.0, -nu) / tgamma(1.0 + nu);
-    fp->m2[0] = pow(2.0, -nu - 1.0) / tgamma(2.0 + nu);
-    fp->m2[1] = pow(2.0, -nu - 1.0) / tgamma(3.0 + nu);
+    fp->L = fp->PG + 2;
+    P1 = fp->PG;   /* below: loops over all gap functions */
+    for (size_t p = 0; p < P1; p++) {
+        double nl = fp->nu_l[p];
+        int o = fp->ord_l[p];
+        /* moments from the small-x series of x^-nu J_{2p+nu}(x) (DLMF 10.2.2) */
+        fp->m0[p] = (o == 0) ? pow(2.0, -nl) / tgamma(1.0 + nl) : 0.0;
+        fp->m2[p] = (o == 0) ? pow(2.0, -nl - 1.0) / tgamma(2.0 + nl)
+                  : (o == 1) ? pow(2.0, -nl - 1.0) / tgamma(3.0 + nl) : 0.0;
+    }
     const double a = fp->a, b = fp->b;
     /* particular solutions: heave phi = ((z+h)^2 - r^2/2)/(2b) (dphi/dz = 1 at z = -d),
      * pitch (order-1 profile, dphi/dz = -r) phi = -((z+h)^2 r - r^3/4)/(2b) */

@@ -42,8 +42,8 @@ static const int profile_of[5] = {PR_SURGE, PR_SURGE, PR_HEAVE, PR_PITCH, PR_PIT
 static int modes(const syi_float_plan *fp, const sy_wave_roots *roots, syi_float_work *w,
                  sy_error *err)
 {
-    const size_t P = fp->P[1], L = fp->L, M = fp->M, Q = fp->Q;
-    const double a = fp->a, b = fp->b, d = fp->d, h = fp->h, nu = SYI_FLOAT_NU;
+    const size_t P = fp->PG, L = fp->L, M = fp->M, Q = fp->Q;
+    const double a = fp->a, b = fp->b, d = fp->d, h = fp->h;
     double complex *v = w->kbuf, *dv = w->kbuf2;
     int rc = SY_OK;
     for (size_t q = 0; q < w->nq && rc == SY_OK; q++) {
@@ -53,12 +53,12 @@ static int modes(const syi_float_plan *fp, const sy_wave_roots *roots, syi_float
             double complex k = roots->k0, x = k * b;
             double complex e2 = cexp(-2.0 * k * h), ed = cexp(-k * d), eh = cexp(-k * (h + b));
             double complex den = 1.0 + e2;
-            double complex xm = cpow(x, -nu);
             for (size_t p = 0; p < P && rc == SY_OK; p++) {
                 double complex iv;
-                rc = sy_special_besseli_nu_scaled(nu + 2.0 * (double)p, x, &iv, err);
+                double nl = fp->nu_l[p];
+                rc = sy_special_besseli_nu_scaled(nl + 2.0 * fp->ord_l[p], x, &iv, err);
                 /* I e^{-x} * e^{x} / cosh(k h) = I_scaled 2 e^{-k d} / (1 + e^{-2kh}) */
-                g[p] = b * xm * iv * 2.0 * ed / den;
+                g[p] = b * cpow(x, -nl) * iv * 2.0 * ed / den;
             }
             if (rc != SY_OK)
                 break;
@@ -92,7 +92,7 @@ static int modes(const syi_float_plan *fp, const sy_wave_roots *roots, syi_float
             }
         } else {
             double complex k = roots->k[q - 1];
-            rc = syi_float_proj_cos(fp, P, 2, k, g, err);
+            rc = syi_float_proj_cos(fp, 2, k, g, err);
             if (rc != SY_OK)
                 break;
             double complex c = ccos(k * h);
@@ -131,7 +131,7 @@ static int modes(const syi_float_plan *fp, const sy_wave_roots *roots, syi_float
 /* Exterior Gram sums per level: direct sum to Qx[lev] plus the reference tail. */
 static void gram(const syi_float_plan *fp, double complex K, syi_float_work *w)
 {
-    const size_t L = fp->L, M = fp->M, P = fp->P[1];
+    const size_t L = fp->L, M = fp->M, P = fp->PG;
     const size_t n = (M + 1) * L * L;
     memset(w->ext, 0, SYI_FLOAT_LEVELS * n * sizeof *w->ext);
     double complex *fine = w->ext + n, *coarse = w->ext;
@@ -167,6 +167,7 @@ static void gram(const syi_float_plan *fp, double complex K, syi_float_work *w)
 typedef struct {
     size_t n;          /* unknowns: P (+1 for m = 0) */
     size_t P;
+    const size_t *idx; /* basis index of each gap unknown */
     size_t ncol;       /* columns: Q diffraction (or 1) then radiation profiles */
     size_t nrad;       /* radiation columns (m = 0: 1, m = 1: 2, else 0) */
 } cols;
@@ -186,7 +187,7 @@ static double complex functional(const syi_float_plan *fp, const syi_float_work 
                                  const cols *cs, size_t c, int prof_i, int prof_j, int is_rad,
                                  size_t qinc)
 {
-    const size_t L = fp->L, P1 = fp->P[1];
+    const size_t L = fp->L, P1 = fp->PG;
     const double complex *x = w->rhs;
     const size_t nc = cs->ncol;
     double v1, vz, u1 = 0.0, uz = 0.0;
@@ -195,10 +196,11 @@ static double complex functional(const syi_float_plan *fp, const syi_float_work 
         wall_coef(fp, prof_j, &u1, &uz);
     double complex wall = 0.0, bot = 0.0;
     if (v1 != 0.0 || vz != 0.0) {
-        for (size_t p = 0; p < cs->P; p++) {
+        for (size_t i = 0; i < cs->P; i++) {
+            size_t p = cs->idx[i];
             double complex e1 = e[P1 * L + p] - s[P1 * L + p];
             double complex ez = e[(P1 + 1) * L + p] - s[(P1 + 1) * L + p];
-            wall += (v1 * e1 + vz * ez) * x[p * nc + c];
+            wall += (v1 * e1 + vz * ez) * x[i * nc + c];
         }
         if (is_rad) {
             for (size_t r = P1; r < P1 + 2; r++) {
@@ -217,14 +219,14 @@ static double complex functional(const syi_float_plan *fp, const syi_float_work 
         wall *= fp->a;
     }
     if (prof_i == PR_HEAVE) {
-        for (size_t p = 0; p < cs->P; p++)
-            bot += fp->bg_heave[p] * x[p * nc + c];
+        for (size_t i = 0; i < cs->P; i++)
+            bot += fp->bg_heave[cs->idx[i]] * x[i * nc + c];
         bot += fp->bw0_heave * x[cs->P * nc + c];
         if (is_rad && prof_j == PR_HEAVE)
             bot += fp->bpp_heave;
     } else if (prof_i == PR_PITCH) {
-        for (size_t p = 0; p < cs->P; p++)
-            bot += fp->bg_pitch[p] * x[p * nc + c];
+        for (size_t i = 0; i < cs->P; i++)
+            bot += fp->bg_pitch[cs->idx[i]] * x[i * nc + c];
         if (is_rad) {
             bot += fp->bg_pitch[P1] * u1 + fp->bg_pitch[P1 + 1] * uz;
             if (prof_j == PR_PITCH)
@@ -239,8 +241,9 @@ static double complex functional(const syi_float_plan *fp, const syi_float_work 
 static int order_solve(const syi_float_plan *fp, syi_float_work *w, size_t m, int lev,
                        int full, cols *cs, sy_error *err)
 {
-    const size_t L = fp->L, P1 = fp->P[1], Q = fp->Q;
+    const size_t L = fp->L, P1 = fp->PG, Q = fp->Q;
     const size_t P = fp->P[lev];
+    const size_t *ix = fp->gidx[lev];
     const double complex *e = w->ext + (size_t)lev * (fp->M + 1) * L * L + m * L * L;
     const double *s = fp->sint + m * L * L;
     size_t n = P + (m == 0);
@@ -249,37 +252,39 @@ static int order_solve(const syi_float_plan *fp, syi_float_work *w, size_t m, in
     size_t nc = nd + nrad;
     cs->n = n;
     cs->P = P;
+    cs->idx = ix;
     cs->ncol = nc;
     cs->nrad = nrad;
     double complex *A = w->mat, *r = w->rhs;
     for (size_t i = 0; i < P; i++)
         for (size_t j = 0; j < P; j++)
-            A[i * n + j] = e[i * L + j] - s[i * L + j];
+            A[i * n + j] = e[ix[i] * L + ix[j]] - s[ix[i] * L + ix[j]];
     if (m == 0) {
         for (size_t i = 0; i < P; i++) {
-            A[i * n + P] = -fp->b * fp->m0[i];   /* -c_0 G_{p0} */
-            A[P * n + i] = fp->b * fp->m0[i];    /* flux constraint */
+            A[i * n + P] = -fp->b * fp->m0[ix[i]];   /* -c_0 G_{p0} */
+            A[P * n + i] = fp->b * fp->m0[ix[i]];    /* flux constraint */
         }
         A[P * n + P] = 0.0;
     }
     for (size_t c = 0; c < nd; c++) {
         const double complex *g = w->proj + c * L;
         for (size_t i = 0; i < P; i++)
-            r[i * nc + c] = -w->w_hp[m * Q + c] * g[i];
+            r[i * nc + c] = -w->w_hp[m * Q + c] * g[ix[i]];
         if (m == 0)
             r[P * nc + c] = 0.0;
     }
     if (m == 0) {
         for (size_t i = 0; i < P; i++)
-            r[i * nc + nd] = fp->phi_heave[i];
+            r[i * nc + nd] = fp->phi_heave[ix[i]];
         r[P * nc + nd] = fp->p0_heave;
     } else if (m == 1) {
         const double zr = fp->z_rot;
         for (size_t i = 0; i < P; i++) {
-            double complex g1 = e[i * L + P1] - s[i * L + P1];
-            double complex gz = e[i * L + P1 + 1] - s[i * L + P1 + 1];
+            size_t li = ix[i];
+            double complex g1 = e[li * L + P1] - s[li * L + P1];
+            double complex gz = e[li * L + P1 + 1] - s[li * L + P1 + 1];
             r[i * nc + nd] = -g1;
-            r[i * nc + nd + 1] = -(-zr * g1 + gz) - fp->pint_pitch[i] + fp->phi_pitch[i];
+            r[i * nc + nd + 1] = -(-zr * g1 + gz) - fp->pint_pitch[li] + fp->phi_pitch[li];
         }
     }
     return syi_float_lsolve(A, n, r, nc, err);
@@ -289,11 +294,11 @@ static int order_solve(const syi_float_plan *fp, syi_float_work *w, size_t m, in
 static double complex beta(const syi_float_plan *fp, const syi_float_work *w, size_t m,
                            const cols *cs, size_t c, int prof, int is_rad, size_t qinc, size_t q)
 {
-    const size_t L = fp->L, P1 = fp->P[1], Q = fp->Q;
+    const size_t L = fp->L, P1 = fp->PG, Q = fp->Q;
     const double complex *g = w->proj + q * L;
     double complex s = 0.0;
-    for (size_t p = 0; p < cs->P; p++)
-        s += w->rhs[p * cs->ncol + c] * g[p];
+    for (size_t i = 0; i < cs->P; i++)
+        s += w->rhs[i * cs->ncol + c] * g[cs->idx[i]];
     if (is_rad) {
         if (prof == PR_SURGE)
             s += g[P1];
