@@ -428,6 +428,11 @@ int syi_float_plan_build(syi_float_plan *fp, const sy_body_plan *plan, size_t P_
      * asked for and the error estimate watches the high-frequency end. */
     double digits = -log10(plan->tolerance > 0.0 ? plan->tolerance : 1e-6);
     size_t P1 = digits <= 4.0 ? 4 : digits <= 7.0 ? 5 : digits <= 10.0 ? 7 : 8;
+    /* a long gap under a shallow draft resolves the corner layer with more functions
+     * (measured: d/h = 0.04 needs about three more than d/h = 0.2 for the same error) */
+    double gap_ratio = (plan->h - plan->geom.draft) / (4.0 * plan->geom.draft);
+    if (gap_ratio > 1.0)
+        P1 += (size_t)fmin(6.0, ceil(log2(gap_ratio)));
     size_t Q1 = (size_t)ceil(8.0 * digits);
     if (Q1 < 16)
         Q1 = 16;
