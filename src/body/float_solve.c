@@ -53,12 +53,15 @@ static int modes(const syi_float_plan *fp, const sy_wave_roots *roots, syi_float
             double complex k = roots->k0, x = k * b;
             double complex e2 = cexp(-2.0 * k * h), ed = cexp(-k * d), eh = cexp(-k * (h + b));
             double complex den = 1.0 + e2;
+            /* special.h scales I by e^{-|Re x|}, not analytic in x; times e^{-i Im x} it
+             * becomes I e^{-x}, which is */
+            double complex unscale = cexp(-I * cimag(x));
             for (size_t p = 0; p < P && rc == SY_OK; p++) {
                 double complex iv;
                 double nl = fp->nu_l[p];
                 rc = sy_special_besseli_nu_scaled(nl + 2.0 * fp->ord_l[p], x, &iv, err);
                 /* I e^{-x} * e^{x} / cosh(k h) = I_scaled 2 e^{-k d} / (1 + e^{-2kh}) */
-                g[p] = b * cpow(x, -nl) * iv * 2.0 * ed / den;
+                g[p] = b * cpow(x, -nl) * iv * unscale * 2.0 * ed / den;
             }
             if (rc != SY_OK)
                 break;
@@ -128,10 +131,12 @@ static int modes(const syi_float_plan *fp, const sy_wave_roots *roots, syi_float
                 rc = sy_special_besseli_scaled_array((int)M + 1, x2, v, err);
                 if (rc != SY_OK)
                     break;
-                /* special scales I by e^{-|Re x|}; Re x > 0 here */
+                /* special scales I by e^{-|Re x|} (Re x > 0): times e^{-i Im x} gives the
+                 * analytic I e^{-x}, so I = v e^{-i Im x} e^{x} */
+                double complex unscale = cexp(-I * cimag(x2));
                 for (size_t m = 0; m <= M; m++) {
                     double complex id = (m == 0) ? v[1] : v[m - 1] - (double)m / x2 * v[m];
-                    w->ip_hp[m * Q + q] = id / dv[m] * ex * ex;
+                    w->ip_hp[m * Q + q] = id * unscale / dv[m] * ex * ex;
                 }
             }
         }
