@@ -3,6 +3,7 @@
 #define SWELLYIELD_H
 #include "swellyield/core.h"
 #include "swellyield/waves.h"
+#include "swellyield/sea.h"
 #include "swellyield/special.h"
 #include "swellyield/body.h"
 #endif

@@ -45,7 +45,7 @@ typedef struct sy_wave_roots {
  * the vertical path (Euler predictor + Newton corrector with step halving, never
  * jumping branch); on the real axis the continuation agrees with the real path to
  * 4 ulps. k(conj omega) = conj k(omega). Deep water (h = INFINITY): k0 = omega^2/g and
- * n_evanescent must be 0. No allocation; about 0.25 us per real root, 1.5 us per complex
+ * n_evanescent must be 0. No allocation; about 0.1-0.25 us per real root, 0.6-1.5 us per complex
  * root (bench/bench_dispersion.c). SY_EINVAL (bad argument, r or r->k NULL),
  * SY_ENOCONV (continuation lost the root; not seen in tests). */
 SY_API int sy_waves_roots_fill(sy_wave_roots *r, double complex omega, double h, double g,
