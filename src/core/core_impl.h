@@ -45,3 +45,17 @@ int syi_utf8_valid(const char *s, size_t n);
 int syi_path_resolve(const char *base_file, const char *rel, char *out, size_t cap, sy_error *err);
 
 #endif
+
+/* ---- atomic outputs: write to a temporary name in the target's folder, then rename ---- */
+
+/* Fill tmp (capacity cap) with "<dir>/.<name>.tmp-<pid>" for final path `path`. */
+int syi_atomic_tmpname(const char *path, char *tmp, size_t cap, sy_error *err);
+/* Rename tmp over path (atomic on POSIX within one file system); on failure tmp is
+ * removed and SY_EIO names both. */
+int syi_atomic_commit(const char *tmp, const char *path, sy_error *err);
+/* Remove tmp if it exists (after a failed write). */
+void syi_atomic_abort(const char *tmp);
+
+/* 64-bit FNV-1a hash of n bytes, chained from h (start with SYI_HASH_SEED). */
+#define SYI_HASH_SEED 0xcbf29ce484222325ULL
+unsigned long long syi_hash64(unsigned long long h, const void *data, size_t n);
