@@ -10,7 +10,8 @@
  *               array's +x axis, default 0)
  *   [device]    shape = float | column, radius (m), draft (m; float: 0 < draft < depth),
  *               mass = displaced | <kg>, modes = comma list of surge, sway, heave, roll,
- *               pitch (default heave)
+ *               pitch (default heave), mooring_stiffness (N/m on surge and sway, default 0),
+ *               viscous_damping (N s/m, linearised, on heave, default 0)
  *   [pto]       damping (N s/m, >= 0), stiffness (N/m), efficiency (0, 1], rated_power (W,
  *               > 0 or absent), max_stroke (m, > 0 or absent: the significant motion
  *               amplitude limit), tuning = fixed | per_sea_state | site_optimal | reactive_bound
@@ -78,6 +79,8 @@ typedef struct sy_model {
     int mass_displaced;                    /* 1: mass = rho * displaced volume */
     double mass;                           /* kg when mass_displaced == 0 */
     unsigned modes;                        /* SY_MODE_BIT mask */
+    double mooring_stiffness;              /* N/m, surge and sway */
+    double viscous_damping;                /* N s/m, heave */
     /* [pto] */
     int has_pto;
     double pto_damping, pto_stiffness;     /* defaults for the layout */

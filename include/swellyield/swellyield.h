@@ -7,4 +7,5 @@
 #include "swellyield/body.h"
 #include "swellyield/model.h"
 #include "swellyield/hydrodb.h"
+#include "swellyield/dynamics.h"
 #endif

@@ -13,7 +13,7 @@
 
 enum {
     K_DEPTH, K_DENSITY, K_GRAVITY, K_CLIMATE, K_BEARING,
-    K_SHAPE, K_RADIUS, K_DRAFT, K_MASS, K_MODES,
+    K_SHAPE, K_RADIUS, K_DRAFT, K_MASS, K_MODES, K_MOORING, K_VISCOUS,
     K_DAMPING, K_STIFFNESS, K_EFFICIENCY, K_RATED, K_STROKE, K_TUNING,
     K_LAYOUT_FILE,
     K_SPECTRUM, K_GAMMA, K_SPREADING, K_PERIOD,
@@ -31,6 +31,7 @@ static const struct {
     [K_SHAPE] = {"device", "shape"},         [K_RADIUS] = {"device", "radius"},
     [K_DRAFT] = {"device", "draft"},         [K_MASS] = {"device", "mass"},
     [K_MODES] = {"device", "modes"},
+    [K_MOORING] = {"device", "mooring_stiffness"}, [K_VISCOUS] = {"device", "viscous_damping"},
     [K_DAMPING] = {"pto", "damping"},        [K_STIFFNESS] = {"pto", "stiffness"},
     [K_EFFICIENCY] = {"pto", "efficiency"},  [K_RATED] = {"pto", "rated_power"},
     [K_STROKE] = {"pto", "max_stroke"},      [K_TUNING] = {"pto", "tuning"},
@@ -280,6 +281,8 @@ static int convert(sy_model *m, const reader *r, sy_error *err)
         m->mass_displaced = 0;
     }
     TRY(parse_modes(&c, &m->modes));
+    TRY(number(&c, K_MOORING, &m->mooring_stiffness, 0.0, 0, 0, 0, 1e15, 0, ">= 0 N/m"));
+    TRY(number(&c, K_VISCOUS, &m->viscous_damping, 0.0, 0, 0, 0, 1e15, 0, ">= 0 N s/m"));
 
     m->has_pto = r->section_line[2] != 0;
     TRY(number(&c, K_DAMPING, &m->pto_damping, 0.0, 0, 0, 0, 1e15, 0, ">= 0 N s/m"));
