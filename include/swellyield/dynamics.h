@@ -64,6 +64,27 @@ SY_API int sy_dyn_reactive_bound(const sy_dyn_plan *plan, size_t io, sy_dyn_work
 SY_API double sy_dyn_passive_optimum(double omega, double mass, double added_mass, double damping,
                                      double stiffness);
 
+/* Fast response under one damping b shared by every PTO (the tuning strategies' search
+ * variable). Per frequency, with Z0 the impedance without PTO damping (PTO stiffness
+ * included) and E the PTO dofs, the Woodbury identity gives the PTO-dof motions
+ *   xi_p(b) = (I - i omega b G)^-1 xi0_p,   G = E^T Z0^-1 E,  xi0_p = E^T Z0^-1 X,
+ * and with G = W diag(mu) W^-1 (eigen-decomposed once) each b costs O(n_devices^2) per
+ * heading instead of a new LU. Created once per (array, PTO stiffness); read-only after,
+ * so threads may share it. */
+typedef struct sy_dyn_modal sy_dyn_modal;
+
+/* stiffness: PTO stiffness of every device (N/m). SY_ESINGULAR if Z0 or W is singular
+ * (then use sy_dyn_response). */
+SY_API int sy_dyn_modal_create(sy_dyn_modal **out, const sy_dyn_plan *plan, double stiffness,
+                               sy_error *err);
+SY_API void sy_dyn_modal_free(sy_dyn_modal *modal);
+
+/* Power (W/m^2) and |xi|^2 (m^2/m^2) of every device's PTO dof at frequency io, heading
+ * ih, for damping b >= 0 (N s/m). power and motion2 have n_devices entries (either may
+ * be NULL); scratch holds n_devices values (caller-owned, one per thread). */
+SY_API void sy_dyn_modal_eval(const sy_dyn_modal *modal, size_t io, size_t ih, double b,
+                              double complex *scratch, double *power, double *motion2);
+
 /* Mass, hydrostatic stiffness of body b's mode (1..5) as used by the plan. */
 SY_API double sy_dyn_mass(const sy_dyn_plan *plan, size_t body, int mode);
 SY_API double sy_dyn_stiffness(const sy_dyn_plan *plan, size_t body, int mode);
