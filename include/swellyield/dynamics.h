@@ -42,6 +42,8 @@ SY_API size_t sy_dyn_n_devices(const sy_dyn_plan *plan);
 SY_API size_t sy_dyn_n_dof(const sy_dyn_plan *plan);
 /* Body index (layout order) of device k. */
 SY_API size_t sy_dyn_device_body(const sy_dyn_plan *plan, size_t k);
+/* Dof index (in the database's order) of device k's PTO mode. */
+SY_API size_t sy_dyn_pto_dof(const sy_dyn_plan *plan, size_t k);
 
 /* Motions and power at frequency index io of the database for every heading.
  * damping[n_devices] (N s/m or N m s/rad) and stiffness[n_devices] are each device's

@@ -19,7 +19,10 @@
  *               radius,draft,damping,stiffness (an empty cell takes the [device]/[pto] value)
  *   [sea]       spectrum = jonswap | bretschneider, gamma (JONSWAP, default 3.3),
  *               spreading (cos-2s exponent s, 0 = long-crested, default 0),
- *               period = te | tp (which period the climate's period axis holds, default te)
+ *               period = te | tp (which period the climate's period axis holds, default te;
+ *               a climate file that states its period kind must agree),
+ *               direction (deg, nautical FROM-direction used when the climate has no
+ *               direction bins; default: waves travel toward the array's +x axis)
  *   [solve]     omega = min:max:count | comma list (rad/s), headings = min:max:count |
  *               comma list (deg, direction waves travel toward, counter-clockwise from +x),
  *               tolerance (relative, default 1e-6)
@@ -97,6 +100,8 @@ typedef struct sy_model {
     double gamma;
     double spreading;                      /* cos-2s exponent s */
     sy_period_kind period;
+    int period_given;                      /* 1 if [sea] period was in the file */
+    double direction_from;                 /* deg nautical from; NAN: toward +x */
     /* [solve] */
     double *omega;                         /* rad/s, ascending */
     size_t n_omega;

@@ -127,6 +127,7 @@ void sy_dyn_work_free(sy_dyn_work *w)
 size_t sy_dyn_n_devices(const sy_dyn_plan *plan) { return plan->n_devices; }
 size_t sy_dyn_n_dof(const sy_dyn_plan *plan) { return plan->n_dof; }
 size_t sy_dyn_device_body(const sy_dyn_plan *plan, size_t k) { return plan->device_body[k]; }
+size_t sy_dyn_pto_dof(const sy_dyn_plan *plan, size_t k) { return plan->pto_dof[k]; }
 
 double sy_dyn_mass(const sy_dyn_plan *plan, size_t body, int mode)
 {

@@ -16,7 +16,7 @@ enum {
     K_SHAPE, K_RADIUS, K_DRAFT, K_MASS, K_MODES, K_MOORING, K_VISCOUS,
     K_DAMPING, K_STIFFNESS, K_EFFICIENCY, K_RATED, K_STROKE, K_TUNING,
     K_LAYOUT_FILE,
-    K_SPECTRUM, K_GAMMA, K_SPREADING, K_PERIOD,
+    K_SPECTRUM, K_GAMMA, K_SPREADING, K_PERIOD, K_DIRECTION,
     K_OMEGA, K_HEADINGS, K_TOLERANCE, K_MAX_BODIES, K_MAX_OMEGA,
     K_REGION, K_QTHRESH,
     K_COUNT
@@ -38,6 +38,7 @@ static const struct {
     [K_LAYOUT_FILE] = {"layout", "file"},
     [K_SPECTRUM] = {"sea", "spectrum"},      [K_GAMMA] = {"sea", "gamma"},
     [K_SPREADING] = {"sea", "spreading"},    [K_PERIOD] = {"sea", "period"},
+    [K_DIRECTION] = {"sea", "direction"},
     [K_OMEGA] = {"solve", "omega"},          [K_HEADINGS] = {"solve", "headings"},
     [K_TOLERANCE] = {"solve", "tolerance"},  [K_MAX_BODIES] = {"solve", "max_bodies"},
     [K_MAX_OMEGA] = {"solve", "max_frequencies"},
@@ -309,6 +310,8 @@ static int convert(sy_model *m, const reader *r, sy_error *err)
     static const char *const periods[] = {"te", "tp"};
     TRY(word(&c, K_PERIOD, &v, 0, periods, 2, "te, tp"));
     m->period = (sy_period_kind)v;
+    m->period_given = r->e[K_PERIOD].line != 0;
+    TRY(number(&c, K_DIRECTION, &m->direction_from, NAN, 0, -360, 0, 360, 0, "a from-direction in [-360, 360] deg"));
 
     TRY(number(&c, K_MAX_BODIES, &x, SY_MODEL_MAX_BODIES_DEFAULT, 0, 1, 0, 1e6, 0, "a count >= 1"));
     m->max_bodies = (size_t)x;
