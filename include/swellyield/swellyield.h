@@ -6,4 +6,7 @@
 #include "swellyield/sea.h"
 #include "swellyield/special.h"
 #include "swellyield/body.h"
+#include "swellyield/model.h"
+#include "swellyield/hydrodb.h"
+#include "swellyield/dynamics.h"
 #endif
