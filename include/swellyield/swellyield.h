@@ -5,4 +5,7 @@
 #include "swellyield/waves.h"
 #include "swellyield/special.h"
 #include "swellyield/body.h"
+#include "swellyield/model.h"
+#include "swellyield/hydrodb.h"
+#include "swellyield/dynamics.h"
 #endif
