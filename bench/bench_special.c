@@ -1,6 +1,6 @@
 /* Time per call of the Bessel interface (include/swellyield/special.h): scalars, arrays
  * of orders 0..20, and real orders, at real arguments (GSL path) and complex arguments
- * (Arb path) of small, moderate and large modulus. Complex arguments sit just below the
+ * (double-complex fast path, Arb outside its range) of small, moderate and large modulus. Complex arguments sit just below the
  * real axis, as k r does for a decaying complex frequency (conventions.md), plus one
  * further away. Prints microseconds per call; record figures in docs/benchmarks.md. */
 #include <complex.h>
@@ -65,7 +65,7 @@ int main(void)
     const double complex zs[] = {0.37, 5.3, 47.5, 0.37 - 0.01 * I, 5.3 - 0.02 * I,
                                  47.5 - 0.3 * I, 12.7 - 1.9 * I, 0.4 + 3.1 * I};
     size_t nz = sizeof zs / sizeof zs[0];
-    printf("bench_special: microseconds per call (z real -> GSL; complex -> double-complex fast path, Arb for real orders)\n");
+    printf("bench_special: microseconds per call (z real -> GSL; complex -> double-complex fast path, Arb where it declines)\n");
     printf("%-26s", "function \\ z");
     for (size_t k = 0; k < nz; k++) {
         char buf[32];

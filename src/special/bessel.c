@@ -284,8 +284,11 @@ static int order_nu(syi_bessel_kind kind, double nu, double complex z, double co
     if (!finite_arg(z))
         return sy_error_set(err, SY_EINVAL, "%s_%g: argument must be finite, got %g%+gi",
                             name, nu, creal(z), cimag(z));
-    if (!is_real(z))
+    if (!is_real(z)) {
+        if (syi_special_fast_nu(kind, nu, z, out) == SY_OK)
+            return SY_OK;
         return syi_special_arb_value(kind, nu, z, out, err);
+    }
     double x = creal(z), v;
     if (x >= 0.0) {
         int rc = syi_special_gsl_nu(kind, nu, x, &v, err);

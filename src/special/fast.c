@@ -14,6 +14,9 @@
  *    flips), I_0 K_1 + I_1 K_0 = 1/z (DLMF 10.5.2-5, 10.28.2). The Hankel function
  *    is taken on the side where |J H| ~ 1/|z|, so the Wronskian sum does not cancel:
  *    H^(1) for Im z >= 0, H^(2) for Im z < 0, and then H^(1) = 2J - H^(2).
+ * Real orders nu (syi_special_fast_nu): |z| <= 2 the ascending series; beyond, the
+ * same CF1 + Wronskian scheme at orders mu = nu - floor(nu), mu + 1, with CF2 at order
+ * mu (Temme's CF2 holds for 0 <= mu < 1).
  * Returns SY_CONTINUE (not an error) whenever the arguments lie outside the range
  * where this was verified against Arb (FAST_* limits) or a value is not finite; the
  * caller then uses the Arb path. Verified in tests/special/test_fast.c. */
@@ -40,6 +43,38 @@ static const double EULER_GAMMA = 0.57721566490153286061; /* DLMF 5.2.3 */
 static const double PI = 3.14159265358979323846;
 
 static int finite_c(double complex v) { return isfinite(creal(v)) && isfinite(cimag(v)); }
+
+/* e^{w} K_mu(w), e^{w} K_{mu+1}(w) for 0 <= mu < 1, |w| > KSERIES_MAX, Re w >= 0:
+ * Steed's CF2 with Temme's sum (NR bessik, x >= 2 branch, complex x). */
+static int cf2_scaled(double mu, double complex w, double complex *k0, double complex *k1)
+{
+    double complex b = 2.0 * (1.0 + w), d = 1.0 / b, h = d, delh = d;
+    double complex a1 = 0.25 - mu * mu, q1 = 0.0, q2 = 1.0, q = a1, c = a1, a = -a1;
+    double complex s = 1.0 + q * delh;
+    int i;
+    for (i = 2; i <= CF_MAXIT; i++) {
+        a -= 2.0 * (i - 1);
+        c = -a * c / (double)i;
+        double complex qnew = (q1 - b * q2) / a;
+        q1 = q2;
+        q2 = qnew;
+        q += c * qnew;
+        b += 2.0;
+        d = 1.0 / (b + a * d);
+        delh = (b * d - 1.0) * delh;
+        h += delh;
+        double complex dels = q * delh;
+        s += dels;
+        if (cabs(dels) < CF_EPS * cabs(s))
+            break;
+    }
+    if (i > CF_MAXIT)
+        return SY_CONTINUE;
+    h = a1 * h;
+    *k0 = csqrt(PI / (2.0 * w)) / s;
+    *k1 = *k0 * (mu + w + 0.5 - h) / w;
+    return finite_c(*k0) && finite_c(*k1) ? SY_OK : SY_CONTINUE;
+}
 
 /* e^{w} K_0(w), e^{w} K_1(w), Re w >= 0, w != 0. */
 static int k01_scaled(double complex w, double complex *k0, double complex *k1)
@@ -69,33 +104,8 @@ static int k01_scaled(double complex w, double complex *k0, double complex *k1)
         double complex e = cexp(w);
         *k0 = (-(lg + EULER_GAMMA) * i0 + s0) * e;
         *k1 = (1.0 / w + lg * i1 - w / 4.0 * s1) * e;
-    } else {
-        /* CF2 at order mu = 0 (NR bessik, x >= 2 branch, with complex x). */
-        double complex b = 2.0 * (1.0 + w), d = 1.0 / b, h = d, delh = d;
-        double complex q1 = 0.0, q2 = 1.0, a1 = 0.25, q = a1, c = a1, a = -a1;
-        double complex s = 1.0 + q * delh;
-        int i;
-        for (i = 2; i <= CF_MAXIT; i++) {
-            a -= 2.0 * (i - 1);
-            c = -a * c / (double)i;
-            double complex qnew = (q1 - b * q2) / a;
-            q1 = q2;
-            q2 = qnew;
-            q += c * qnew;
-            b += 2.0;
-            d = 1.0 / (b + a * d);
-            delh = (b * d - 1.0) * delh;
-            h += delh;
-            double complex dels = q * delh;
-            s += dels;
-            if (cabs(dels) < CF_EPS * cabs(s))
-                break;
-        }
-        if (i > CF_MAXIT)
-            return SY_CONTINUE;
-        h = a1 * h;
-        *k0 = csqrt(PI / (2.0 * w)) / s;
-        *k1 = *k0 * (w + 0.5 - h) / w;
+    } else if (cf2_scaled(0.0, w, k0, k1) != SY_OK) {
+        return SY_CONTINUE;
     }
     return finite_c(*k0) && finite_c(*k1) ? SY_OK : SY_CONTINUE;
 }
@@ -244,4 +254,106 @@ int syi_special_fast_array(syi_bessel_kind kind, int nmax, double complex z,
     default:
         return SY_CONTINUE;
     }
+}
+
+/* Real order nu >= 0, |z| <= KSERIES_MAX: the ascending series (DLMF 10.2.2, 10.25.2)
+ * J_nu, I_nu = (z/2)^nu sum_k (-+z^2/4)^k / (k! Gamma(nu + k + 1)); terms vary by at
+ * most e^{|z|^2/4} <= e, so no significant cancellation. sign = -1 for J, +1 for I. */
+static int series_nu(double nu, double complex z, double sign, double complex *out)
+{
+    double g = tgamma(nu + 1.0);
+    if (!isfinite(g))
+        return SY_CONTINUE;
+    double complex t = sign * z * z / 4.0, term = cpow(z / 2.0, nu) / g, sum = term;
+    for (int k = 1; k < SERIES_MAXIT; k++) {
+        term *= t / ((double)k * (nu + k));
+        sum += term;
+        if (cabs(term) < CF_EPS * cabs(sum))
+            break;
+    }
+    *out = sum;
+    return finite_c(sum) ? SY_OK : SY_CONTINUE;
+}
+
+/* Unnormalised C_{mu+j}, j = 0, 1 and m, for J (sign = -1) or I (+1): CF1 for
+ * C_{mu+m+1}/C_{mu+m} (as in miller()), then the downward recurrence to mu with
+ * rolling values. */
+static int miller_nu(double mu, int m, double complex z, double sign, double complex f[3])
+{
+    double complex inv_z = 1.0 / z, fr = TINY, C = fr, D = 0.0;
+    int k;
+    for (k = 1; k <= CF_MAXIT; k++) {
+        double complex bk = 2.0 * (mu + m + k) * inv_z;
+        double ak = k == 1 ? 1.0 : sign;
+        D = bk + ak * D;
+        if (D == 0.0)
+            D = TINY;
+        C = bk + ak / C;
+        if (C == 0.0)
+            C = TINY;
+        D = 1.0 / D;
+        double complex delta = C * D;
+        fr *= delta;
+        if (cabs(delta - 1.0) < CF_EPS)
+            break;
+    }
+    if (k > CF_MAXIT)
+        return SY_CONTINUE;
+    double complex up = fr, cur = 1.0, top = 1.0; /* C_{mu+j+1}, C_{mu+j}, C_{mu+m} */
+    for (int j = m; j >= 1; j--) {
+        double complex down = 2.0 * (mu + j) * inv_z * cur + sign * up;
+        up = cur;
+        cur = down;
+        if (cabs(cur) > RESCALE) {
+            cur /= RESCALE;
+            up /= RESCALE;
+            top /= RESCALE;
+        }
+    }
+    f[0] = cur;
+    f[1] = up;
+    f[2] = top;
+    return SY_OK;
+}
+
+int syi_special_fast_nu(syi_bessel_kind kind, double nu, double complex z, double complex *out)
+{
+    double az = cabs(z);
+    if (!(creal(z) >= 0.0) || az < FAST_ZMIN || az > FAST_ZMAX ||
+        fabs(cimag(z)) > FAST_IM_MAX || !(nu >= 0.0 && nu <= FAST_NMAX) ||
+        (kind != SYI_BESSEL_J && kind != SYI_BESSEL_I_SCALED))
+        return SY_CONTINUE;
+    int is_j = kind == SYI_BESSEL_J;
+    if (az <= KSERIES_MAX) {
+        if (series_nu(nu, z, is_j ? -1.0 : 1.0, out) != SY_OK)
+            return SY_CONTINUE;
+        if (!is_j)
+            *out *= exp(-creal(z));
+        return SY_OK;
+    }
+    int m = (int)floor(nu);
+    double mu = nu - m;
+    double complex f[3], k[2];
+    if (miller_nu(mu, m, z, is_j ? -1.0 : 1.0, f) != SY_OK)
+        return SY_CONTINUE;
+    if (!is_j) {
+        /* I_mu K_{mu+1} + I_{mu+1} K_mu = 1/z (DLMF 10.28.2), scaled as in the arrays */
+        if (cf2_scaled(mu, z, &k[0], &k[1]) != SY_OK)
+            return SY_CONTINUE;
+        *out = cexp(I * cimag(z)) / (z * (f[0] * k[1] + f[1] * k[0])) * f[2];
+    } else {
+        /* Hankel pair at orders mu, mu + 1 from K (DLMF 10.27.8):
+         * H1_v(z) = (2/(pi i)) e^{-i v pi/2} K_v(-iz) for Im z >= 0,
+         * H2_v(z) = (2i/pi) e^{i v pi/2} K_v(iz) for Im z < 0; then
+         * J_{mu+1} H_mu - J_mu H_{mu+1} = +-2i/(pi z) (DLMF 10.5.5). */
+        int which = cimag(z) >= 0.0 ? 1 : -1;
+        double complex w = which > 0 ? -I * z : I * z, h[2];
+        if (cf2_scaled(mu, w, &k[0], &k[1]) != SY_OK)
+            return SY_CONTINUE;
+        double complex pre = (which > 0 ? 2.0 / (PI * I) : 2.0 * I / PI) * cexp(-w);
+        for (int j = 0; j < 2; j++)
+            h[j] = pre * cexp(-which * I * PI * (mu + j) / 2.0) * k[j];
+        *out = which * 2.0 * I / (PI * z * (f[1] * h[0] - f[0] * h[1])) * f[2];
+    }
+    return finite_c(*out) ? SY_OK : SY_CONTINUE;
 }
