@@ -1,8 +1,8 @@
 /* Time per call of the Bessel interface (include/swellyield/special.h): scalars, arrays
  * of orders 0..20, and real orders, at real arguments (GSL path) and complex arguments
- * (double-complex fast path, Arb outside its range) of small, moderate and large modulus. Complex arguments sit just below the
- * real axis, as k r does for a decaying complex frequency (conventions.md), plus one
- * further away. Prints microseconds per call; record figures in docs/benchmarks.md. */
+ * (double-complex fast path, Arb outside its range) of small, moderate and large
+ * modulus. Complex arguments sit just below the real axis, as k r does for a decaying
+ * complex frequency (conventions.md), plus two further away. Prints microseconds per call; record figures in docs/benchmarks.md. */
 #include <complex.h>
 #include "swellyield/special.h"
 

@@ -128,18 +128,14 @@ static int k_scaled(int nmax, double complex w, double complex *out)
     return SY_OK;
 }
 
-/* Unnormalised J (sign = -1) or I (sign = +1) at orders 0..nmax: CF1 for
- * C_{nmax+1}/C_{nmax} by modified Lentz, then C_{n-1} = (2n/z) C_n - sign... i.e.
- * J_{n-1} = (2n/z) J_n - J_{n+1}, I_{n-1} = (2n/z) I_n + I_{n+1}. f needs nmax + 2. */
-static int miller(int nmax, double complex z, double sign, double complex *f)
+/* CF1: r = C_{v+1}/C_v for J (sign = -1) or I (+1) at real order v (DLMF 10.10.1,
+ * 10.33.1), r = 1/(2(v+1)/z + sign r'), as b_0 + a_1/(b_1 + a_2/(b_2 + ...)) with
+ * b_0 = 0, a_1 = 1, a_k = sign, b_k = 2(v + k)/z, by modified Lentz. */
+static int cf1_ratio(double v, double complex z, double sign, double complex *r)
 {
-    /* r = C_{m}/C_{m-1} = 1/(2m/z + sign * r_{m+1}), m = nmax + 1, as a continued
-     * fraction b_0 + a_1/(b_1 + a_2/(b_2 + ...)) with b_0 = 0, a_1 = 1, a_k = sign,
-     * b_k = 2(m + k - 1)/z. */
     double complex inv_z = 1.0 / z, fr = TINY, C = fr, D = 0.0;
-    int k;
-    for (k = 1; k <= CF_MAXIT; k++) {
-        double complex bk = 2.0 * (double)(nmax + k) * inv_z;
+    for (int k = 1; k <= CF_MAXIT; k++) {
+        double complex bk = 2.0 * (v + k) * inv_z;
         double ak = k == 1 ? 1.0 : sign;
         D = bk + ak * D;
         if (D == 0.0)
@@ -150,10 +146,21 @@ static int miller(int nmax, double complex z, double sign, double complex *f)
         D = 1.0 / D;
         double complex delta = C * D;
         fr *= delta;
-        if (cabs(delta - 1.0) < CF_EPS)
-            break;
+        if (cabs(delta - 1.0) < CF_EPS) {
+            *r = fr;
+            return SY_OK;
+        }
     }
-    if (k > CF_MAXIT)
+    return SY_CONTINUE;
+}
+
+/* Unnormalised J (sign = -1) or I (sign = +1) at orders 0..nmax: CF1 for
+ * C_{nmax+1}/C_{nmax}, then downward J_{n-1} = (2n/z) J_n - J_{n+1},
+ * I_{n-1} = (2n/z) I_n + I_{n+1}, rescaled to stay in range. f needs nmax + 2. */
+static int miller(int nmax, double complex z, double sign, double complex *f)
+{
+    double complex inv_z = 1.0 / z, fr;
+    if (cf1_ratio(nmax, z, sign, &fr) != SY_OK)
         return SY_CONTINUE;
     f[nmax + 1] = fr;
     f[nmax] = 1.0;
@@ -280,24 +287,8 @@ static int series_nu(double nu, double complex z, double sign, double complex *o
  * rolling values. */
 static int miller_nu(double mu, int m, double complex z, double sign, double complex f[3])
 {
-    double complex inv_z = 1.0 / z, fr = TINY, C = fr, D = 0.0;
-    int k;
-    for (k = 1; k <= CF_MAXIT; k++) {
-        double complex bk = 2.0 * (mu + m + k) * inv_z;
-        double ak = k == 1 ? 1.0 : sign;
-        D = bk + ak * D;
-        if (D == 0.0)
-            D = TINY;
-        C = bk + ak / C;
-        if (C == 0.0)
-            C = TINY;
-        D = 1.0 / D;
-        double complex delta = C * D;
-        fr *= delta;
-        if (cabs(delta - 1.0) < CF_EPS)
-            break;
-    }
-    if (k > CF_MAXIT)
+    double complex inv_z = 1.0 / z, fr;
+    if (cf1_ratio(mu + m, z, sign, &fr) != SY_OK)
         return SY_CONTINUE;
     double complex up = fr, cur = 1.0, top = 1.0; /* C_{mu+j+1}, C_{mu+j}, C_{mu+m} */
     for (int j = m; j >= 1; j--) {
