@@ -116,6 +116,8 @@ SY_API double *sy_climate_table_occurrence_mut(sy_climate_table *t);
  * times SY_CLIMATE_HOURS_PER_YEAR for a fraction table (O = N_h f, references.md 5.1). */
 SY_API double sy_climate_table_hours(const sy_climate_table *t, size_t index);
 
+/* Metadata strings are copied; a comment starting with the sentence the writer adds to
+ * invented tables ("INVENTED DATA for demonstration ...") is stored without it. */
 SY_API const sy_climate_meta *sy_climate_table_meta(const sy_climate_table *t);
 SY_API int sy_climate_table_set_meta(sy_climate_table *t, const sy_climate_meta *meta,
                                      sy_error *err);
@@ -152,6 +154,10 @@ SY_API int sy_climate_table_write(const sy_climate_table *t, const char *path,
  * by 100 into a fraction table). Bin edges are the union of the listed limits; a row
  * spanning more than one of them is an overlap error. */
 SY_API int sy_climate_table_read_csv(sy_climate_table **out, const char *path, sy_error *err);
+
+/* Read a scatter table from either form: paths ending in ".csv" (any case) as CSV, all
+ * others as NetCDF. For the command line's summarise and convert verbs. */
+SY_API int sy_climate_table_load(sy_climate_table **out, const char *path, sy_error *err);
 
 /* ---- Summary statistics ----------------------------------------------------------- */
 
