@@ -53,16 +53,9 @@ static int family_cos(double nu, size_t n, double b, double complex x, double co
         /* Upward recurrence J_{mu+1} = (2 mu / x) J_mu - J_{mu-1} is stable for mu < |x|
          * (DLMF 10.6.1); only orders nu and nu + 1 are evaluated. */
         double complex jm, jp;
-        if (cimag(x) != 0.0 && cabs(x) >= 25.0 && creal(x) > fabs(cimag(x))) {
-            /* complex omega: Hankel's expansion, far cheaper than the Arb path */
-            rc = sy_special_besselj_nu_hankel(nu, x, &jm, err);
-            if (rc == SY_OK)
-                rc = sy_special_besselj_nu_hankel(nu + 1.0, x, &jp, err);
-        } else {
-            rc = sy_special_besselj_nu(nu, x, &jm, err);
-            if (rc == SY_OK)
-                rc = sy_special_besselj_nu(nu + 1.0, x, &jp, err);
-        }
+        rc = sy_special_besselj_nu(nu, x, &jm, err);
+        if (rc == SY_OK)
+            rc = sy_special_besselj_nu(nu + 1.0, x, &jp, err);
         if (rc != SY_OK)
             return rc;
         double mu = nu + 1.0;

@@ -103,18 +103,7 @@ static int modes(const syi_float_plan *fp, const sy_wave_roots *roots, syi_float
                 g[l] /= c;
             w->norm[q] = (h / 2.0 + csin(2.0 * k * h) / (4.0 * k)) / (c * c);
             double complex x2 = k * a;
-            if (cimag(x2) != 0.0 && fabs(carg(x2)) < 0.5) {
-                /* complex omega: K_0, K_1 by quadrature (special.h, fast_complex.c), then
-                 * the upward recurrence K_{n+1} = K_{n-1} + (2n/x) K_n (DLMF 10.29.1),
-                 * stable for K in Re x > 0 */
-                rc = sy_special_besselk_scaled_quad(0.0, x2, &v[0], err);
-                if (rc == SY_OK)
-                    rc = sy_special_besselk_scaled_quad(1.0, x2, &v[1], err);
-                for (size_t n = 1; n <= M; n++)
-                    v[n + 1] = v[n - 1] + 2.0 * (double)n / x2 * v[n];
-            } else {
-                rc = sy_special_besselk_scaled_array((int)M + 1, x2, v, err);
-            }
+            rc = sy_special_besselk_scaled_array((int)M + 1, x2, v, err);
             if (rc != SY_OK)
                 break;
             for (size_t m = 0; m <= M; m++)
