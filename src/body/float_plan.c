@@ -346,7 +346,8 @@ static int exterior_reference(syi_float_plan *fp, sy_error *err)
     if (buf == NULL)
         return sy_error_set(err, SY_ENOMEM, "float plan reference sums");
     double *tot = buf, *e0 = buf + n, *ep = buf + 2 * n, *em = buf + 3 * n, *part = buf + 4 * n;
-    for (int lev = 0; lev < SYI_FLOAT_LEVELS; lev++) {
+    const int nl = (int)fp->nqlev;
+    for (int lev = 0; lev < nl; lev++) {
         memset(fp->t1[lev], 0, n * sizeof(double));
         memset(fp->t2[lev], 0, n * sizeof(double));
     }
@@ -360,7 +361,7 @@ static int exterior_reference(syi_float_plan *fp, sy_error *err)
             break;
         for (size_t i = 0; i < n; i++)
             tot[i] += e0[i];
-        for (int lev = 0; lev < SYI_FLOAT_LEVELS; lev++)
+        for (int lev = 0; lev < nl; lev++)
             if (q == fp->Qx[lev])
                 memcpy(fp->rtail[lev], tot, n * sizeof(double)); /* partial sums */
         if (q <= fp->Qx[0])
@@ -375,7 +376,7 @@ static int exterior_reference(syi_float_plan *fp, sy_error *err)
             double d2 = (ep[i] - 2.0 * e0[i] + em[i]) / (dk * dk);
             double c1 = -d1 / qpi;
             double c2 = d2 / (2.0 * qpi * qpi) - d1 * h / (qpi * qpi * qpi);
-            for (int lev = 0; lev < SYI_FLOAT_LEVELS; lev++)
+            for (int lev = 0; lev < nl; lev++)
                 if (q > fp->Qx[lev]) {
                     fp->t1[lev][i] += c1;
                     fp->t2[lev][i] += c2;
@@ -394,7 +395,7 @@ static int exterior_reference(syi_float_plan *fp, sy_error *err)
                     part[i] = c * pow(h / SYI_PI, s) * em_tail(s, Q_REF);
                 }
         }
-        for (int lev = 0; lev < SYI_FLOAT_LEVELS; lev++)
+        for (int lev = 0; lev < nl; lev++)
             for (size_t i = 0; i < n; i++)
                 fp->rtail[lev][i] = tot[i] + part[i] - fp->rtail[lev][i];
     }
@@ -458,8 +459,16 @@ int syi_float_plan_build(syi_float_plan *fp, const sy_body_plan *plan, size_t P_
         if (l + 1 < P1 || l >= P1)
             fp->gidx[0][fp->P[0]++] = l;
     }
-    fp->Qx[1] = Q1;
+    /* exterior ladder: Q1/2, Q1, 2 Q1, 4 Q1, 8 Q1 (fine level chosen per frequency) */
+    fp->nqlev = SYI_FLOAT_QLEV;
     fp->Qx[0] = Q1 / 2;
+    for (size_t i = 1; i < fp->nqlev; i++)
+        fp->Qx[i] = Q1 << (i - 1);
+    if (Qx_force > 0)
+        fp->nqlev = 2;   /* forced: exactly Q1 (fine) and Q1/2 (coarse) */
+    /* measured (docs/hydro-convergence.md): the exterior error behaves like
+     * (2 b |K| / (pi Qx))^5, about 1e-7 at a ratio of 0.17 */
+    fp->q_ratio = 0.17 * pow(pow(10.0, -digits) / 1e-7, 0.2);
     fp->L = fp->PG + 2;
     P1 = fp->PG;   /* below: loops over all gap functions */
     for (size_t p = 0; p < P1; p++) {
@@ -492,7 +501,7 @@ int syi_float_plan_build(syi_float_plan *fp, const sy_body_plan *plan, size_t P_
     size_t n = (fp->M + 1) * fp->L * fp->L;
     fp->sint = calloc(n, sizeof *fp->sint);
     int ok = fp->sint != NULL;
-    for (int lev = 0; lev < SYI_FLOAT_LEVELS; lev++) {
+    for (size_t lev = 0; lev < fp->nqlev; lev++) {
         fp->rtail[lev] = calloc(n, sizeof(double));
         fp->t1[lev] = calloc(n, sizeof(double));
         fp->t2[lev] = calloc(n, sizeof(double));
@@ -513,7 +522,7 @@ void syi_float_plan_release(syi_float_plan *fp)
     if (fp == NULL)
         return;
     free(fp->sint);
-    for (int lev = 0; lev < SYI_FLOAT_LEVELS; lev++) {
+    for (int lev = 0; lev < SYI_FLOAT_QLEV; lev++) {
         free(fp->rtail[lev]);
         free(fp->t1[lev]);
         free(fp->t2[lev]);

@@ -133,7 +133,7 @@ static int modes(const syi_float_plan *fp, const sy_wave_roots *roots, syi_float
     return rc;
 }
 
-/* Exterior Gram sums per level: direct sum to Qx[lev] plus the reference tail. */
+/* Exterior Gram sums per level: direct sum to Qx[rung] plus the reference tail. */
 static void gram(const syi_float_plan *fp, double complex K, syi_float_work *w)
 {
     const size_t L = fp->L, M = fp->M, P = fp->PG;
@@ -153,16 +153,17 @@ static void gram(const syi_float_plan *fp, double complex K, syi_float_work *w)
                     e[l * L + lp] += cl * g[lp];
             }
         }
-        if (q == fp->Qx[0])
+        if (q == fp->Qx[w->qc])
             memcpy(coarse, fine, n * sizeof *fine);
     }
     for (int lev = 0; lev < SYI_FLOAT_LEVELS; lev++) {
         double complex *e = w->ext + lev * n;
+        size_t r = lev ? w->qf : w->qc;
         for (size_t m = 0; m <= M; m++)
             for (size_t l = 0; l < L; l++)
                 for (size_t lp = l; lp < L; lp++) {
                     size_t i = (m * L + l) * L + lp;
-                    e[i] += fp->rtail[lev][i] + K * (fp->t1[lev][i] + K * fp->t2[lev][i]);
+                    e[i] += fp->rtail[r][i] + K * (fp->t1[r][i] + K * fp->t2[r][i]);
                     e[(m * L + lp) * L + l] = e[i];
                 }
     }
@@ -323,6 +324,14 @@ int syi_float_solve(const sy_body_plan *plan, const sy_wave_roots *roots, double
     const size_t Q = fp->Q, Mo = plan->n_order, nn = 2 * Mo + 1, L = fp->L;
     const double complex omega = roots->omega;
     const double complex K = omega * omega / roots->g;
+    /* exterior rung for this frequency (float_impl.h) */
+    size_t f = 1;
+    double need = 2.0 * fp->b * cabs(K) / SYI_PI;   /* modulus: a truncation choice only */
+    while (f + 1 < fp->nqlev && need / (double)fp->Qx[f] > fp->q_ratio)
+        f++;
+    w->qf = f;
+    w->qc = f - 1;
+    w->nq = fp->Qx[f] + 1;
     int rc = modes(fp, roots, w, err);
     if (rc != SY_OK) {
         sy_error_prefix(err, "float at omega = %g%+gi rad/s", creal(omega), cimag(omega));
