@@ -4,6 +4,7 @@
 #include "swellyield/core.h"
 #include "swellyield/waves.h"
 #include "swellyield/sea.h"
+#include "swellyield/climate.h"
 #include "swellyield/special.h"
 #include "swellyield/body.h"
 #include "swellyield/model.h"
