@@ -45,6 +45,7 @@ typedef enum sy_sea_kind {
     /* Pierson-Moskowitz shape in Hs and Tp, a.k.a. two-parameter Bretschneider:
      * S = (5/16) Hs^2 wp^4 w^-5 exp(-(5/4)(w/wp)^-4)   (references.md 2.1) */
     SY_SEA_PM = 1,
+    SY_SEA_BRETSCHNEIDER = SY_SEA_PM, /* the same shape (project files say "bretschneider") */
     /* JONSWAP, DNV-RP-C205 form: A S_PM(w) gamma^exp(-(w - wp)^2 / (2 sigma^2 wp^2)),
      * sigma = 0.07 (w <= wp), 0.09 (w > wp)   (references.md 2.3) */
     SY_SEA_JONSWAP = 2

@@ -41,10 +41,14 @@
 
 static int check_args(double complex omega, double h, double g, sy_error *err)
 {
-    if (!isfinite(creal(omega)) || !isfinite(cimag(omega)) || !(creal(omega) > 0.0))
+    if (!isfinite(creal(omega)) || !isfinite(cimag(omega)) || !(creal(omega) > 0.0)) {
+        if (cimag(omega) == 0.0)
+            return sy_error_set(err, SY_EINVAL, "waves: omega must be finite and > 0 rad/s, got %g",
+                                creal(omega));
         return sy_error_set(err, SY_EINVAL,
                             "waves: omega must be finite with Re(omega) > 0 rad/s, got %g%+gi",
                             creal(omega), cimag(omega));
+    }
     if (!(h > 0.0) || isnan(h))
         return sy_error_set(err, SY_EINVAL,
                             "waves: depth h must be > 0 m (INFINITY for deep water), got %g", h);

@@ -149,8 +149,8 @@ static void limits_and_residuals(void)
                    "worst evanescent residual m <= 10 / max(1e-12, rounding limit)");
     /* Bad input. */
     sy_error err = SY_ERROR_INIT;
-    sy_check_fails(sy_waves_wavenumber(-1.0, 10, G, &k, &err), SY_EINVAL, &err, "Re(omega) > 0",
-                   "omega < 0");
+    sy_check_fails(sy_waves_wavenumber(-1.0, 10, G, &k, &err), SY_EINVAL, &err,
+                   "omega must be finite and > 0 rad/s, got -1", "omega < 0");
     sy_check_fails(sy_waves_wavenumber(1.0, 0.0, G, &k, &err), SY_EINVAL, &err,
                    "depth h must be > 0", "h = 0");
     sy_check_fails(sy_waves_wavenumber(1.0, 10, NAN, &k, &err), SY_EINVAL, &err, "gravity",
@@ -158,6 +158,8 @@ static void limits_and_residuals(void)
     sy_wave_roots r = {.k = kk};
     sy_check_fails(sy_waves_roots_fill(&r, 1.0, INFINITY, G, 2, &err), SY_EINVAL, &err,
                    "need a finite depth", "evanescent roots in deep water");
+    sy_check_fails(sy_waves_roots_fill(&r, -0.5 - 0.1 * I, 10, G, 0, &err), SY_EINVAL, &err,
+                   "Re(omega) > 0 rad/s, got -0.5-0.1i", "complex omega with Re < 0");
     sy_check_ok(sy_waves_roots_fill(&r, 1.0 - 0.1 * I, INFINITY, G, 0, &err), &err,
                 "deep complex k0");
     sy_check_cclose(r.k0, (1.0 - 0.1 * I) * (1.0 - 0.1 * I) / G, 4 * DBL_EPSILON, 0,
