@@ -225,6 +225,19 @@ static void periods_given(void)
     sy_sea_spectrum_describe(&r2, buf, sizeof buf);
     sy_check_true(strstr(buf, "JONSWAP") && strstr(buf, "DNV rule") && strstr(buf, "norm DNV"),
                   "describe: %s", buf);
+    /* Tz given with the rule: the same consistency, and Tz kept. */
+    sy_sea_spectrum r3 = make((sy_sea_spectrum_spec){.kind = SY_SEA_JONSWAP, .hs = 3, .tz = 5.9});
+    sy_check_close(r3.gamma, sy_sea_gamma_dnv(3, r3.tp), 0, 1e-9,
+                   "gamma 0 with Tz: gamma = rule(Hs, Tp) (%g)", r3.gamma);
+    sy_check_close(r3.tz, 5.9, 1e-13, 0, "gamma 0 with Tz: Tz kept");
+    /* Rule ends: steep sea (gamma 5) and swell (gamma 1). */
+    sy_sea_spectrum r4 = make((sy_sea_spectrum_spec){.kind = SY_SEA_JONSWAP, .hs = 9, .te = 9});
+    sy_sea_spectrum r5 = make((sy_sea_spectrum_spec){.kind = SY_SEA_JONSWAP, .hs = 1, .te = 9});
+    sy_check_close(r4.gamma, 5, 0, 1e-9, "rule with Te: Tp/sqrt(Hs) < 3.6 gives gamma 5");
+    sy_check_close(r5.gamma, 1, 0, 1e-9, "rule with Te: Tp/sqrt(Hs) > 5 gives gamma 1");
+    sy_sea_spectrum pm = make((sy_sea_spectrum_spec){.kind = SY_SEA_BRETSCHNEIDER, .hs = 2, .te = 8});
+    sy_sea_spectrum_describe(&pm, buf, sizeof buf);
+    sy_check_true(strstr(buf, "Pierson-Moskowitz Hs 2 m Tp 9.3324") != NULL, "describe: %s", buf);
 }
 
 static void cdf(void)
