@@ -116,6 +116,8 @@ SY_API double *sy_climate_table_occurrence_mut(sy_climate_table *t);
  * times SY_CLIMATE_HOURS_PER_YEAR for a fraction table (O = N_h f, references.md 5.1). */
 SY_API double sy_climate_table_hours(const sy_climate_table *t, size_t index);
 
+/* Metadata strings are copied; a comment starting with the sentence the writer adds to
+ * invented tables ("INVENTED DATA for demonstration ...") is stored without it. */
 SY_API const sy_climate_meta *sy_climate_table_meta(const sy_climate_table *t);
 SY_API int sy_climate_table_set_meta(sy_climate_table *t, const sy_climate_meta *meta,
                                      sy_error *err);
@@ -153,6 +155,10 @@ SY_API int sy_climate_table_write(const sy_climate_table *t, const char *path,
  * spanning more than one of them is an overlap error. */
 SY_API int sy_climate_table_read_csv(sy_climate_table **out, const char *path, sy_error *err);
 
+/* Read a scatter table from either form: paths ending in ".csv" (any case) as CSV, all
+ * others as NetCDF. For the command line's summarise and convert verbs. */
+SY_API int sy_climate_table_load(sy_climate_table **out, const char *path, sy_error *err);
+
 /* ---- Summary statistics ----------------------------------------------------------- */
 
 typedef struct sy_climate_summary {
@@ -189,12 +195,16 @@ typedef struct sy_climate_average {
     double mean;      /* occurrence-weighted mean of q over bins with occurrence > 0 */
     double per_year;  /* sum of q x hours per year (q in W gives W h per year) */
     double hours;     /* mean annual hours covered, h/yr (weight total) */
+    double hours_per_year;  /* SY_CLIMATE_HOURS_PER_YEAR, used for fraction tables */
     size_t n_bins;    /* bins evaluated (those with occurrence > 0) */
 } sy_climate_average;
 
 /* Evaluate fn on every bin with non-zero occurrence (in flat index order) and form the
  * occurrence-weighted mean and the annual sum. The lead's uses: mean J of a climate,
  * annual energy = sum P_bin O_bin (references.md 5.1; O from sy_climate_table_hours).
+ * A bin the caller cannot value (for example no power-matrix entry while the bin has
+ * occurrence, which references.md 5.1 says must be reported, not treated as 0): return an
+ * error from fn; the message gets the bin's limits in front.
  * SY_EINPUT if the table has no occurrence; the callback's status otherwise. */
 SY_API int sy_climate_table_average(const sy_climate_table *t, sy_climate_bin_fn fn,
                                     void *ctx, sy_climate_average *avg, sy_error *err);

@@ -10,4 +10,6 @@
 #include "swellyield/model.h"
 #include "swellyield/hydrodb.h"
 #include "swellyield/dynamics.h"
+#include "swellyield/yield.h"
+#include "swellyield/outputs.h"
 #endif

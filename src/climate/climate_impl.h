@@ -31,6 +31,15 @@ char *syi_climate_strdup(const char *s);
 int syi_climate_nc_text_att(int ncid, int varid, const char *name, char **out,
                             const char *path, sy_error *err);
 
+/* Sentence the writer puts before the comment of an invented table; readers strip it so
+ * meta.comment holds only the source's own comment. */
+#define SYI_INVENTED_SENTENCE                                                             \
+    "INVENTED DATA for demonstration and testing: these numbers are not measurements or " \
+    "hindcast results of any real site."
+
+/* s without a leading SYI_INVENTED_SENTENCE (and the spaces after it). */
+const char *syi_climate_strip_invented(const char *s);
+
 /* Period standard names (references.md 6.1). */
 #define SYI_CF_HS "sea_surface_wave_significant_height"
 #define SYI_CF_TE "sea_surface_wave_mean_period_from_variance_spectral_density_inverse_frequency_moment"

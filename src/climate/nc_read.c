@@ -208,10 +208,6 @@ static int get_dim(reader *r, const char *name, int required, int *dimid, size_t
     return SY_OK;
 }
 
-static const char *const INVENTED_PREFIX =
-    "INVENTED DATA for demonstration and testing: these numbers are not measurements or "
-    "hindcast results of any real site.";
-
 static int read_contents(reader *r, sy_climate_table **out)
 {
     int d_hs, d_per, d_dir, d_bnd;
@@ -337,13 +333,7 @@ static int read_contents(reader *r, sy_climate_table **out)
         m.institution = inst;
         m.comment = comment;
         m.invented = inv != NULL && strcmp(inv, "yes") == 0;
-        if (comment != NULL && m.invented &&
-            strncmp(comment, INVENTED_PREFIX, strlen(INVENTED_PREFIX)) == 0) {
-            /* The writer adds this sentence; keep the stored comment free of it. */
-            m.comment = comment + strlen(INVENTED_PREFIX);
-            while (*m.comment == ' ')
-                m.comment++;
-        }
+        m.comment = syi_climate_strip_invented(comment);
         double y;
         int st = nc_get_att_double(r->ncid, NC_GLOBAL, "record_length_years", &y);
         if (st == NC_NOERR)

@@ -194,9 +194,7 @@ static int write_contents(writer *w, const sy_climate_table *t, const char *note
     if (rc == SY_OK)
         rc = put_text(w, NC_GLOBAL, "global", "history", buf);
     snprintf(buf, sizeof buf, "%s%s%s",
-             m->invented ? "INVENTED DATA for demonstration and testing: these numbers are "
-                           "not measurements or hindcast results of any real site."
-                         : "",
+             m->invented ? SYI_INVENTED_SENTENCE : "",
              m->invented && m->comment[0] != '\0' ? " " : "", m->comment);
     if (rc == SY_OK && buf[0] != '\0')
         rc = put_text(w, NC_GLOBAL, "global", "comment", buf);

@@ -44,7 +44,7 @@ int sy_climate_table_average(const sy_climate_table *t, sy_climate_bin_fn fn, vo
         return sy_error_set(err, SY_EINVAL, "scatter table average: NULL argument");
     const sy_climate_bins *b = &t->bins;
     size_t nd = b->n_dir > 0 ? b->n_dir : 1;
-    *avg = (sy_climate_average){NAN, 0.0, 0.0, 0};
+    *avg = (sy_climate_average){NAN, 0.0, 0.0, SY_CLIMATE_HOURS_PER_YEAR, 0};
     double sum_qo = 0.0;
     for (size_t i = 0; i < t->n_values; i++) {
         if (!(t->occ[i] > 0.0))

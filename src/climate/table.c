@@ -34,6 +34,17 @@ char *syi_climate_strdup(const char *s)
     return c;
 }
 
+const char *syi_climate_strip_invented(const char *s)
+{
+    size_t n = strlen(SYI_INVENTED_SENTENCE);
+    if (s == NULL || strncmp(s, SYI_INVENTED_SENTENCE, n) != 0)
+        return s;
+    s += n;
+    while (*s == ' ')
+        s++;
+    return s;
+}
+
 static int check_edges(const double *e, size_t n_bins, double lowest, int lowest_open,
                        const char *what, const char *unit, const char *where, sy_error *err)
 {
@@ -226,7 +237,8 @@ int sy_climate_table_set_meta(sy_climate_table *t, const sy_climate_meta *m, sy_
     if (t == NULL || m == NULL)
         return sy_error_set(err, SY_EINVAL, "scatter table metadata: NULL argument");
     char *s[4] = {syi_climate_strdup(m->site), syi_climate_strdup(m->source),
-                  syi_climate_strdup(m->institution), syi_climate_strdup(m->comment)};
+                  syi_climate_strdup(m->institution),
+                  syi_climate_strdup(syi_climate_strip_invented(m->comment))};
     if (s[0] == NULL || s[1] == NULL || s[2] == NULL || s[3] == NULL) {
         for (int i = 0; i < 4; i++)
             free(s[i]);

@@ -60,6 +60,10 @@ int main(void)
     check_date("hours since 2010-06-30 12:00:00 +0130", NULL, 0.0, "2010-06-30T10:30:00Z",
                "offset +hhmm");
     check_date("d since 2020-12-31", NULL, -366.0, "2019-12-31T00:00:00Z", "2020 leap, backwards");
+    /* A Gregorian 400-year cycle has 146097 days, i.e. 8765.82 h per year on average
+     * (references.md 6.2). */
+    check_date("days since 2000-01-01", "standard", 146097.0, "2400-01-01T00:00:00Z",
+               "400-year cycle");
     /* Proleptic Gregorian before 1582: Python datetime is proleptic Gregorian too. */
     sy_check_close(decode1("days since 1500-01-01", "proleptic_gregorian", 0.0, &err),
                    -14831769600.0, 0.0, 0.0, "1500-01-01 proleptic (Python datetime)");

@@ -61,7 +61,8 @@ static void compare(const sy_climate_table *a, const sy_climate_table *b, const 
                       strcmp(p->comment, q->comment) == 0 && p->invented == q->invented,
                   "%s: same text metadata ('%s' vs '%s')", what, p->comment, q->comment);
     sy_check_true((p->depth == q->depth || (isnan(p->depth) && isnan(q->depth))) &&
-                      p->record_years == q->record_years,
+                      (p->record_years == q->record_years ||
+                       (isnan(p->record_years) && isnan(q->record_years))),
                   "%s: same depth and record length", what);
 }
 
@@ -235,9 +236,9 @@ int main(int argc, char **argv)
     snprintf(path, sizeof path, "%s/seastates/shelf_site.nc", src ? src : "../..");
     sy_check_ok(sy_climate_table_read(&shelf, path, &err), &err, "read demo %s", path);
     snprintf(path, sizeof path, "%s/seastates/sheltered_site.nc", src ? src : "../..");
-    sy_check_ok(sy_climate_table_read(&sheltered, path, &err), &err, "read demo %s", path);
+    sy_check_ok(sy_climate_table_load(&sheltered, path, &err), &err, "load demo %s (NetCDF)", path);
     snprintf(path, sizeof path, "%s/seastates/shelf_site.csv", src ? src : "../..");
-    sy_check_ok(sy_climate_table_read_csv(&csv, path, &err), &err, "read demo %s", path);
+    sy_check_ok(sy_climate_table_load(&csv, path, &err), &err, "load demo %s (CSV by name)", path);
     if (shelf != NULL && sheltered != NULL && csv != NULL) {
         const sy_climate_bins *b = sy_climate_table_bins(shelf);
         sy_check_true(b->n_hs == 16 && b->n_period == 14 && b->n_dir == 12 &&
@@ -276,10 +277,26 @@ int main(int argc, char **argv)
                       "%zu different)", missing, mismatched);
         /* Summed in different orders: a few ulps of ~8400 h. */
         sy_check_close(tot_c, tot_n, 1e-12, 0.0, "CSV total equals NetCDF total");
+        sy_check_true(strcmp(sy_climate_table_meta(csv)->comment,
+                             sy_climate_table_meta(shelf)->comment) == 0 &&
+                          strncmp(sy_climate_table_meta(csv)->comment, "Moderately", 10) == 0,
+                      "CSV and NetCDF comments equal, without the invented-data sentence");
         sy_check_true(strcmp(sy_climate_table_meta(csv)->site, "Invented Shelf") == 0 &&
                           sy_climate_table_meta(csv)->invented &&
                           sy_climate_table_meta(csv)->depth == 50.0,
                       "CSV metadata");
+    }
+    /* The convert path: CSV -> NetCDF -> read back, identical. */
+    if (csv != NULL) {
+        sy_climate_table *back = NULL;
+        const char *conv = in_dir("converted.nc");
+        sy_check_ok(sy_climate_table_write(csv, conv, "converted from CSV", &err), &err,
+                    "write converted CSV");
+        sy_check_ok(sy_climate_table_read(&back, conv, &err), &err, "read converted CSV");
+        if (back != NULL)
+            compare(csv, back, "CSV -> NetCDF conversion");
+        sy_climate_table_free(back);
+        remove(conv);
     }
     sy_climate_table_free(shelf);
     sy_climate_table_free(sheltered);

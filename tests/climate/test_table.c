@@ -62,6 +62,7 @@ int main(void)
     sy_check_close(avg.per_year / 1000.0, 966.4515, 1e-12, 0.0,
                    "MAEP MWh/yr with 8766 h (references.md 5.4)");
     sy_check_close(avg.hours, SY_CLIMATE_HOURS_PER_YEAR, 1e-15, 0.0, "hours covered");
+    sy_check_true(avg.hours_per_year == 8766.0, "average reports 8766 h per year");
     sy_check_true(avg.n_bins == 9, "9 bins evaluated");
     /* Mean J 17.4655 kW/m, resource 153.103 MWh/m/yr: references.md 5.4, printed to 6
      * digits, so rtol 5e-6 (half a unit in the last printed digit is 3e-6). */
