@@ -5,4 +5,5 @@
 #include "swellyield/waves.h"
 #include "swellyield/special.h"
 #include "swellyield/body.h"
+#include "swellyield/array.h"
 #endif

@@ -1,0 +1,477 @@
+/* Array solve at one frequency (real or complex): roots, isolated-body characteristics
+ * per body type, the translation matrix T~ (Graf's addition theorem, array.h), the
+ * interaction matrix I - D~ T~ (one LU, LAPACKE zgetrf row-major), all right-hand sides
+ * at once (headings, then every radiating dof), then
+ *   total incident alpha = direct incident + T~ beta   (one zgemm),
+ *   forces F = G~ alpha,   X = F (headings),   Z = Z_iso - F (radiation columns).
+ * Scaled basis and index maps: array_impl.h. Incident wave of unit amplitude about the
+ * centre c_i of body i (Jacobi-Anger): a_{0n} = -(i g / omega) P_i i^n e^{-i n beta},
+ * P_i = exp(i k0 (x_i cos beta + y_i sin beta)). No allocation here. */
+#include "array_impl.h"
+
+#include "swellyield/special.h"
+
+#include <cblas.h>
+#include <lapacke.h>
+#include <math.h>
+#include <stdlib.h>
+#include <string.h>
+
+int sy_array_work_alloc(sy_array_work **out, const sy_array_plan *plan, sy_error *err)
+{
+    const size_t nu = plan->n_unknowns, nr = plan->n_rhs ? plan->n_rhs : 1, M = plan->M;
+    sy_array_work *w = calloc(1, sizeof *w);
+    int ok = w != NULL;
+    if (ok) {
+        w->n_types = plan->n_types;
+        w->roots_k = malloc((plan->n_roots + 1) * sizeof *w->roots_k);
+        w->bwork = calloc(plan->n_types, sizeof *w->bwork);
+        w->bwaves = calloc(plan->n_types, sizeof *w->bwaves);
+        w->scale = malloc(plan->n_types * plan->Q * (M + 1) * sizeof *w->scale);
+        w->tmat = malloc(nu * nu * sizeof *w->tmat);
+        w->mat = malloc(nu * nu * sizeof *w->mat);
+        w->pivots = malloc(nu * sizeof(lapack_int));
+        w->inc = malloc(nu * nr * sizeof *w->inc);
+        w->sol = malloc(nu * nr * sizeof *w->sol);
+        w->fn = malloc((2 * M + 2) * sizeof *w->fn);
+        w->phase = malloc((4 * M + 1) * sizeof *w->phase);
+        w->force = malloc((plan->n_dof + 1) * nr * sizeof *w->force);
+        ok = w->roots_k && w->bwork && w->bwaves && w->scale && w->tmat && w->mat && w->pivots &&
+             w->inc && w->sol && w->fn && w->phase && w->force;
+    }
+    if (!ok) {
+        sy_array_work_free(w);
+        return sy_error_set(err, SY_ENOMEM, "array work for %zu unknowns (%.3g MB)", nu,
+                            (double)(2 * nu * nu + 2 * nu * nr) * sizeof(double complex) / 1e6);
+    }
+    for (size_t t = 0; t < plan->n_types; t++) {
+        int rc = sy_body_work_alloc(&w->bwork[t], plan->bplan[t], err);
+        if (rc == SY_OK)
+            rc = sy_body_waves_alloc(&w->bwaves[t], M, plan->Q, err);
+        if (rc != SY_OK) {
+            sy_array_work_free(w);
+            return rc;
+        }
+    }
+    *out = w;
+    return SY_OK;
+}
+
+void sy_array_work_free(sy_array_work *w)
+{
+    if (w == NULL)
+        return;
+    for (size_t t = 0; w->bwork != NULL && t < w->n_types; t++)
+        sy_body_work_free(w->bwork[t]);
+    for (size_t t = 0; w->bwaves != NULL && t < w->n_types; t++)
+        sy_body_waves_free(w->bwaves[t]);
+    free(w->bwork);
+    free(w->bwaves);
+    free(w->roots_k);
+    free(w->scale);
+    free(w->tmat);
+    free(w->mat);
+    free(w->pivots);
+    free(w->inc);
+    free(w->sol);
+    free(w->fn);
+    free(w->phase);
+    free(w->force);
+    free(w);
+}
+
+int sy_array_hydro_alloc(sy_array_hydro **out, const sy_array_plan *plan, sy_error *err)
+{
+    size_t nd = plan->n_dof, nh = plan->n_headings;
+    sy_array_hydro *r = calloc(1, sizeof *r);
+    if (r != NULL) {
+        r->n_dof = nd;
+        r->n_headings = nh;
+        r->impedance = calloc(nd * nd + 1, sizeof *r->impedance);
+        r->added_mass = calloc(nd * nd + 1, sizeof *r->added_mass);
+        r->damping = calloc(nd * nd + 1, sizeof *r->damping);
+        r->excitation = calloc(nh * nd + 1, sizeof *r->excitation);
+    }
+    if (r == NULL || !r->impedance || !r->added_mass || !r->damping || !r->excitation) {
+        sy_array_hydro_free(r);
+        return sy_error_set(err, SY_ENOMEM, "array results for %zu dofs, %zu headings", nd, nh);
+    }
+    *out = r;
+    return SY_OK;
+}
+
+void sy_array_hydro_free(sy_array_hydro *r)
+{
+    if (r == NULL)
+        return;
+    free(r->impedance);
+    free(r->added_mass);
+    free(r->damping);
+    free(r->excitation);
+    free(r);
+}
+
+static double complex wavenumber(const sy_array_work *w, size_t q)
+{
+    return q == 0 ? w->roots.k0 : w->roots.k[q - 1];
+}
+
+int syi_array_prepare(const sy_array_plan *plan, double complex omega, sy_array_work *w,
+                      sy_error *err)
+{
+    const size_t M = plan->M, Q = plan->Q;
+    if (!(creal(omega) > 0.0) || !isfinite(creal(omega)) || !isfinite(cimag(omega)))
+        return sy_error_set(err, SY_EINVAL, "array: Re omega must be > 0 rad/s and finite, got %g%+gi",
+                            creal(omega), cimag(omega));
+    w->factored = 0;
+    w->roots.k = w->roots_k;
+    int rc = sy_waves_roots_fill(&w->roots, omega, plan->set.h, plan->set.g, plan->n_roots, err);
+    if (rc != SY_OK) {
+        sy_error_prefix(err, "array: roots at omega = %g%+gi rad/s", creal(omega), cimag(omega));
+        return rc;
+    }
+    for (size_t t = 0; t < plan->n_types; t++) {
+        rc = sy_body_solve(plan->bplan[t], &w->roots, plan->set.rho, w->bwork[t], w->bwaves[t], err);
+        if (rc != SY_OK) {
+            sy_error_prefix(err, "array: body type %zu at omega = %g%+gi rad/s", t, creal(omega),
+                            cimag(omega));
+            return rc;
+        }
+        double a = plan->types[t].geom.radius;
+        for (size_t q = 0; q < Q; q++) {
+            double complex x = wavenumber(w, q) * a;
+            double *s = &w->scale[(t * Q + q) * (M + 1)];
+            if (q == 0)
+                rc = sy_special_hankel1_array((int)M, x, w->fn, err);
+            else
+                rc = sy_special_besselk_scaled_array((int)M, x, w->fn, err);
+            if (rc != SY_OK) {
+                sy_error_prefix(err, "array: scaling of type %zu, depth mode %zu", t, q);
+                return rc;
+            }
+            /* |K_n(x)| = |Ks_n(x)| e^{-Re x} */
+            double damp = q == 0 ? 1.0 : exp(-creal(x));
+            for (size_t n = 0; n <= M; n++) {
+                s[n] = cabs(w->fn[n]) * damp;
+                if (!(s[n] > 0.0) || !isfinite(s[n]))
+                    return sy_error_set(err, SY_ELOSS,
+                                        "array: partial wave (q %zu, n %zu) of type %zu has "
+                                        "|Hhat(k a)| = %g at k a = %g%+gi (under/overflow); "
+                                        "reduce the depth modes or orders", q, n, t, s[n],
+                                        creal(x), cimag(x));
+            }
+        }
+    }
+    return SY_OK;
+}
+
+int syi_array_translation(const sy_array_plan *plan, sy_array_work *w, sy_error *err)
+{
+    const size_t N = plan->n_bodies, M = plan->M, nn = plan->nn, nu = plan->n_unknowns;
+    const long Ml = (long)M;
+    memset(w->tmat, 0, nu * nu * sizeof *w->tmat);
+    for (size_t i = 0; i < N; i++) {
+        size_t ti = plan->bodies[i].type;
+        double ai = plan->types[ti].geom.radius;
+        for (size_t j = i + 1; j < N; j++) {
+            size_t tj = plan->bodies[j].type;
+            double aj = plan->types[tj].geom.radius;
+            double L = plan->pair_L[i * N + j], alpha = plan->pair_alpha[i * N + j];
+            /* e^{i p alpha}, p = -2M..2M */
+            double complex e1 = cexp(I * alpha);
+            w->phase[2 * M] = 1.0;
+            for (size_t p = 1; p <= 2 * M; p++) {
+                w->phase[2 * M + p] = w->phase[2 * M + p - 1] * e1;
+                w->phase[2 * M - p] = conj(w->phase[2 * M + p]);
+            }
+            for (size_t q = 0; q < plan->pair_nq[i * N + j]; q++) {
+                double complex k = wavenumber(w, q), extra = 1.0;
+                int rc;
+                if (q == 0) {
+                    rc = sy_special_hankel1_array((int)(2 * M), k * L, w->fn, err);
+                } else {
+                    rc = sy_special_besselk_scaled_array((int)(2 * M), k * L, w->fn, err);
+                    /* K(kL) / (|K(k a_i)| |K(k a_j)|) with the exponentials combined */
+                    extra = cexp(-k * L + creal(k) * (ai + aj));
+                }
+                if (rc != SY_OK) {
+                    sy_error_prefix(err, "array: translation between bodies %zu and %zu, mode %zu",
+                                    i, j, q);
+                    return rc;
+                }
+                for (long m = -Ml; m <= Ml; m++) {
+                    double si = syi_array_scale(plan, w, ti, q, m);
+                    double sj_m = syi_array_scale(plan, w, tj, q, m);
+                    size_t row_i = plan->unk_off[i] + q * nn + (size_t)(m + Ml);
+                    size_t row_j = plan->unk_off[j] + q * nn + (size_t)(m + Ml);
+                    for (long n = -Ml; n <= Ml; n++) {
+                        long pidx = n - m;
+                        long ap = pidx < 0 ? -pidx : pidx;
+                        double complex f = w->fn[ap] * extra;
+                        /* H_{-p} = (-1)^p H_p;  K_{-p} = K_p */
+                        int odd_p = (int)(ap & 1);
+                        if (q == 0 && pidx < 0 && odd_p)
+                            f = -f;
+                        double complex ph = w->phase[2 * M + pidx];
+                        /* block (i <- j): direction alpha; block (j <- i): alpha + pi,
+                         * e^{i p (alpha + pi)} = (-1)^p e^{i p alpha} */
+                        double complex tij = f * ph, tji = odd_p ? -tij : tij;
+                        if (q > 0 && (m & 1)) {  /* (-1)^m of the K addition theorem */
+                            tij = -tij;
+                            tji = -tji;
+                        }
+                        double sj_n = syi_array_scale(plan, w, tj, q, n);
+                        double si_n = syi_array_scale(plan, w, ti, q, n);
+                        w->tmat[row_i * nu + plan->unk_off[j] + q * nn + (size_t)(n + Ml)] =
+                            tij / (si * sj_n);
+                        w->tmat[row_j * nu + plan->unk_off[i] + q * nn + (size_t)(n + Ml)] =
+                            tji / (sj_m * si_n);
+                    }
+                }
+            }
+        }
+    }
+    return SY_OK;
+}
+
+/* D~ of body type t at order n (|n| <= M) between depth modes q, qp. */
+static double complex dscaled(const sy_array_plan *plan, const sy_array_work *w, size_t t, long n,
+                              size_t q, size_t qp)
+{
+    size_t an = (size_t)(n < 0 ? -n : n), Q = plan->Q;
+    return w->bwaves[t]->diffraction[(an * Q + q) * Q + qp] * syi_array_scale(plan, w, t, q, n) *
+           syi_array_scale(plan, w, t, qp, n);
+}
+
+/* mat = I - D~ T~ (rows of body i mix the T~ rows of the same order over depth modes). */
+static void build_matrix(const sy_array_plan *plan, sy_array_work *w)
+{
+    const size_t N = plan->n_bodies, nn = plan->nn, nu = plan->n_unknowns;
+    const long Ml = (long)plan->M;
+    memset(w->mat, 0, nu * nu * sizeof *w->mat);
+    for (size_t i = 0; i < N; i++) {
+        size_t t = plan->bodies[i].type, nq = plan->nq[i];
+        for (size_t q = 0; q < nq; q++)
+            for (long m = -Ml; m <= Ml; m++) {
+                size_t row = plan->unk_off[i] + q * nn + (size_t)(m + Ml);
+                double complex *out = &w->mat[row * nu];
+                for (size_t qp = 0; qp < nq; qp++) {
+                    double complex d = dscaled(plan, w, t, m, q, qp);
+                    if (d == 0.0)
+                        continue;
+                    const double complex *trow = &w->tmat[(plan->unk_off[i] + qp * nn + (size_t)(m + Ml)) * nu];
+                    for (size_t c = 0; c < nu; c++)
+                        out[c] -= d * trow[c];
+                }
+                out[row] += 1.0;
+            }
+    }
+}
+
+static int factorise(const sy_array_plan *plan, sy_array_work *w, double complex omega, sy_error *err)
+{
+    const size_t nu = plan->n_unknowns;
+    build_matrix(plan, w);
+    lapack_int info = LAPACKE_zgetrf(LAPACK_ROW_MAJOR, (lapack_int)nu, (lapack_int)nu, w->mat,
+                                     (lapack_int)nu, (lapack_int *)w->pivots);
+    if (info > 0)
+        return sy_error_set(err, SY_ESINGULAR,
+                            "array: interaction matrix I - D T singular at omega = %g%+gi rad/s "
+                            "(zero pivot %d of %zu)", creal(omega), cimag(omega), (int)info, nu);
+    if (info < 0)
+        return sy_error_set(err, SY_EINVAL, "array: zgetrf argument %d invalid", (int)-info);
+    w->factored = 1;
+    w->omega = omega;
+    return SY_OK;
+}
+
+/* Direct incident waves (columns of w->inc, scaled alpha) and right-hand sides D~ inc
+ * (columns of w->sol). */
+static void right_hand_sides(const sy_array_plan *plan, sy_array_work *w, double complex omega)
+{
+    const size_t N = plan->n_bodies, nn = plan->nn, nu = plan->n_unknowns, nr = plan->n_rhs;
+    const size_t Q = plan->Q;
+    const long Ml = (long)plan->M;
+    const double complex k0 = w->roots.k0, amp = -I * plan->set.g / omega;
+    memset(w->inc, 0, nu * nr * sizeof *w->inc);
+    /* headings: only q = 0 of the ambient wave is non-zero */
+    for (size_t i = 0; i < N; i++) {
+        size_t t = plan->bodies[i].type;
+        for (size_t b = 0; b < plan->n_headings; b++) {
+            double beta = plan->headings[b];
+            double complex pi = amp * cexp(I * k0 * (plan->bodies[i].x * cos(beta) + plan->bodies[i].y * sin(beta)));
+            double complex step = I * cexp(-I * beta);   /* i e^{-i beta}, |step| = 1 */
+            double complex fp = pi, fm = pi;
+            for (long n = 0; n <= Ml; n++) {
+                /* n >= 0: i^n e^{-i n beta};  -n: i^{-n} e^{i n beta} */
+                double s = syi_array_scale(plan, w, t, 0, n);
+                w->inc[(plan->unk_off[i] + (size_t)(n + Ml)) * nr + b] = fp / s;
+                w->inc[(plan->unk_off[i] + (size_t)(Ml - n)) * nr + b] = fm / s;
+                fp *= step;
+                fm /= step;
+            }
+        }
+    }
+    /* radiation columns: incident on every body = T~ rho, rho = S R of the moving body */
+    for (size_t r = 0; r < plan->n_rad; r++) {
+        size_t d = plan->rad_dof[r], i = plan->dof_body[d], t = plan->bodies[i].type;
+        int mode = plan->dof_mode[d];
+        size_t col = plan->n_headings + r;
+        const double complex *R = &w->bwaves[t]->radiation[(size_t)(mode - 1) * Q * nn];
+        for (size_t row = 0; row < nu; row++) {
+            const double complex *trow = &w->tmat[row * nu + plan->unk_off[i]];
+            double complex acc = 0.0;
+            for (size_t q = 0; q < plan->nq[i]; q++)
+                for (long n = -Ml; n <= Ml; n++) {
+                    double complex rho_qn = R[q * nn + (size_t)(n + Ml)] * syi_array_scale(plan, w, t, q, n);
+                    acc += trow[q * nn + (size_t)(n + Ml)] * rho_qn;
+                }
+            w->inc[row * nr + col] = acc;
+        }
+    }
+    /* sol = D~ inc */
+    for (size_t i = 0; i < N; i++) {
+        size_t t = plan->bodies[i].type, nq = plan->nq[i];
+        for (size_t q = 0; q < nq; q++)
+            for (long m = -Ml; m <= Ml; m++) {
+                size_t row = plan->unk_off[i] + q * nn + (size_t)(m + Ml);
+                double complex *out = &w->sol[row * nr];
+                memset(out, 0, nr * sizeof *out);
+                for (size_t qp = 0; qp < nq; qp++) {
+                    double complex dd = dscaled(plan, w, t, m, q, qp);
+                    const double complex *in = &w->inc[(plan->unk_off[i] + qp * nn + (size_t)(m + Ml)) * nr];
+                    for (size_t c = 0; c < nr; c++)
+                        out[c] += dd * in[c];
+                }
+            }
+    }
+}
+
+int sy_array_solve(const sy_array_plan *plan, double complex omega, sy_array_work *w,
+                   sy_array_hydro *res, sy_error *err)
+{
+    if (plan == NULL || w == NULL || res == NULL)
+        return sy_error_set(err, SY_EINVAL, "array solve: NULL argument");
+    if (res->n_dof != plan->n_dof || res->n_headings != plan->n_headings)
+        return sy_error_set(err, SY_EINVAL, "array solve: result sized for %zu dofs, %zu headings; plan has %zu, %zu",
+                            res->n_dof, res->n_headings, plan->n_dof, plan->n_headings);
+    const size_t N = plan->n_bodies, nn = plan->nn, nu = plan->n_unknowns, nr = plan->n_rhs;
+    const size_t Q = plan->Q, nd = plan->n_dof;
+    const long Ml = (long)plan->M;
+    int rc = syi_array_prepare(plan, omega, w, err);
+    if (rc == SY_OK)
+        rc = syi_array_translation(plan, w, err);
+    if (rc != SY_OK)
+        return rc;
+    right_hand_sides(plan, w, omega);
+    rc = factorise(plan, w, omega, err);
+    if (rc != SY_OK)
+        return rc;
+    if (nr > 0) {
+        lapack_int info = LAPACKE_zgetrs(LAPACK_ROW_MAJOR, 'N', (lapack_int)nu, (lapack_int)nr, w->mat,
+                                         (lapack_int)nu, (const lapack_int *)w->pivots, w->sol, (lapack_int)nr);
+        if (info != 0)
+            return sy_error_set(err, SY_EINVAL, "array: zgetrs argument %d invalid", (int)-info);
+        /* total incident alpha = inc + T~ beta, into sol */
+        const double complex one = 1.0;
+        cblas_zgemm(CblasRowMajor, CblasNoTrans, CblasNoTrans, (blasint)nu, (blasint)nr, (blasint)nu,
+                    &one, w->tmat, (blasint)nu, w->sol, (blasint)nr, &one, w->inc, (blasint)nr);
+    }
+    /* forces F[d, c] = sum G~ alpha_total */
+    for (size_t d = 0; d < nd; d++) {
+        size_t i = plan->dof_body[d], t = plan->bodies[i].type;
+        int mode = plan->dof_mode[d];
+        const double complex *G = &w->bwaves[t]->force[(size_t)(mode - 1) * Q * nn];
+        double complex *f = &w->force[d * nr];
+        memset(f, 0, nr * sizeof *f);
+        for (size_t q = 0; q < plan->nq[i]; q++)
+            for (long n = -Ml; n <= Ml; n++) {
+                double complex g = G[q * nn + (size_t)(n + Ml)] * syi_array_scale(plan, w, t, q, n);
+                if (g == 0.0)
+                    continue;
+                const double complex *a = &w->inc[(plan->unk_off[i] + q * nn + (size_t)(n + Ml)) * nr];
+                for (size_t c = 0; c < nr; c++)
+                    f[c] += g * a[c];
+            }
+    }
+    (void)N;
+    res->omega = omega;
+    res->k0 = w->roots.k0;
+    int real_axis = cimag(omega) == 0.0;
+    res->cg = real_axis ? sy_waves_group_velocity(creal(omega), creal(w->roots.k0), plan->set.h) : NAN;
+    for (size_t b = 0; b < plan->n_headings; b++)
+        for (size_t d = 0; d < nd; d++)
+            res->excitation[b * nd + d] = w->force[d * nr + b];
+    memset(res->impedance, 0, nd * nd * sizeof *res->impedance);
+    for (size_t r = 0; r < plan->n_rad; r++) {
+        size_t e = plan->rad_dof[r], col = plan->n_headings + r;
+        size_t ie = plan->dof_body[e], te = plan->bodies[ie].type;
+        int me = plan->dof_mode[e];
+        for (size_t d = 0; d < nd; d++) {
+            size_t id = plan->dof_body[d];
+            if (plan->types[plan->bodies[id].type].geom.kind != SY_BODY_FLOAT)
+                continue;
+            double complex z = -w->force[d * nr + col];
+            if (id == ie) {
+                int md = plan->dof_mode[d];
+                size_t k = (size_t)(md - 1) * SY_BODY_NMODES + (size_t)(me - 1);
+                z += w->bwaves[te]->damping[k] - I * omega * w->bwaves[te]->added_mass[k];
+            }
+            res->impedance[d * nd + e] = z;
+        }
+    }
+    for (size_t k = 0; k < nd * nd; k++) {
+        if (real_axis) {
+            res->damping[k] = creal(res->impedance[k]);
+            res->added_mass[k] = -cimag(res->impedance[k]) / creal(omega);
+        } else {
+            res->damping[k] = NAN;
+            res->added_mass[k] = NAN;
+        }
+    }
+    return SY_OK;
+}
+
+int sy_array_interaction_logdet(const sy_array_plan *plan, double complex omega, sy_array_work *w,
+                                double complex *logdet, sy_error *err)
+{
+    if (plan == NULL || w == NULL || logdet == NULL)
+        return sy_error_set(err, SY_EINVAL, "array logdet: NULL argument");
+    int rc = syi_array_prepare(plan, omega, w, err);
+    if (rc == SY_OK)
+        rc = syi_array_translation(plan, w, err);
+    if (rc == SY_OK)
+        rc = factorise(plan, w, omega, err);
+    if (rc != SY_OK)
+        return rc;
+    const size_t nu = plan->n_unknowns;
+    const lapack_int *piv = (const lapack_int *)w->pivots;
+    double complex s = 0.0;
+    size_t swaps = 0;
+    for (size_t r = 0; r < nu; r++) {
+        s += clog(w->mat[r * nu + r]);
+        if ((size_t)piv[r] != r + 1)
+            swaps++;
+    }
+    if (swaps & 1)
+        s += I * SY_ARRAY_PI;
+    *logdet = s;
+    return SY_OK;
+}
+
+int sy_array_interaction_solve(const sy_array_plan *plan, sy_array_work *w, const double complex *rhs,
+                               double complex *x, sy_error *err)
+{
+    if (plan == NULL || w == NULL || rhs == NULL || x == NULL)
+        return sy_error_set(err, SY_EINVAL, "array interaction solve: NULL argument");
+    if (!w->factored)
+        return sy_error_set(err, SY_EINVAL, "array interaction solve: no factorisation in this work");
+    const size_t nu = plan->n_unknowns;
+    if (x != rhs)
+        memcpy(x, rhs, nu * sizeof *x);
+    lapack_int info = LAPACKE_zgetrs(LAPACK_ROW_MAJOR, 'N', (lapack_int)nu, 1, w->mat, (lapack_int)nu,
+                                     (const lapack_int *)w->pivots, x, 1);
+    if (info != 0)
+        return sy_error_set(err, SY_EINVAL, "array: zgetrs argument %d invalid", (int)-info);
+    return SY_OK;
+}
