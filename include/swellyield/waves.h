@@ -15,7 +15,8 @@ extern "C" {
 #endif
 
 /* Propagating wavenumber k > 0 for real omega > 0, depth h > 0 (use h = INFINITY for
- * deep water), gravity g > 0. Relative residual < 1e-14. SY_EINVAL on bad arguments. */
+ * deep water), gravity g > 0. Relative residual < 1e-14; exact (k = omega^2/g) once
+ * tanh(kh) rounds to 1, no overflow at any kh. SY_EINVAL on bad arguments. */
 SY_API int sy_waves_wavenumber(double omega, double h, double g, double *k, sy_error *err);
 
 /* Group velocity cg = (omega/k)/2 (1 + 2kh/sinh(2kh)) [m/s]; deep limit for large kh. */
@@ -35,7 +36,18 @@ typedef struct sy_wave_roots {
 
 /* Fill r with the propagating root and the first n_evanescent evanescent roots at
  * omega (Re omega > 0). r->k must point to caller storage for n_evanescent values.
- * Each root satisfies its relation to 1e-12 relative. SY_EINVAL, SY_ENOCONV. */
+ * Each root is within a few ulps of the exact root (checked against 40-digit mpmath up
+ * to m = 1000), so it satisfies its relation to 1e-12 relative except where the relation
+ * itself is worse conditioned than that (long waves at high m: rounding k_m to double
+ * alone moves x tan x by ~ (m pi)^2 eps / y relative, y = omega^2 h / g).
+ * Real omega (Im omega == 0): real safeguarded Newton, k0 and k[] have zero imaginary
+ * parts. Complex omega: analytic continuation from the real roots at Re(omega) along
+ * the vertical path (Euler predictor + Newton corrector with step halving, never
+ * jumping branch); on the real axis the continuation agrees with the real path to
+ * 4 ulps. k(conj omega) = conj k(omega). Deep water (h = INFINITY): k0 = omega^2/g and
+ * n_evanescent must be 0. No allocation; about 0.25 us per real root, 1.5 us per complex
+ * root (bench/bench_dispersion.c). SY_EINVAL (bad argument, r or r->k NULL),
+ * SY_ENOCONV (continuation lost the root; not seen in tests). */
 SY_API int sy_waves_roots_fill(sy_wave_roots *r, double complex omega, double h, double g,
                                size_t n_evanescent, sy_error *err);
 
