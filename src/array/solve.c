@@ -172,10 +172,8 @@ int syi_array_translation(const sy_array_plan *plan, sy_array_work *w, sy_error 
     memset(w->tmat, 0, nu * nu * sizeof *w->tmat);
     for (size_t i = 0; i < N; i++) {
         size_t ti = plan->bodies[i].type;
-        double ai = plan->types[ti].geom.radius;
         for (size_t j = i + 1; j < N; j++) {
             size_t tj = plan->bodies[j].type;
-            double aj = plan->types[tj].geom.radius;
             double L = plan->pair_L[i * N + j], alpha = plan->pair_alpha[i * N + j];
             /* e^{i p alpha}, p = -2M..2M */
             double complex e1 = cexp(I * alpha);
@@ -191,8 +189,8 @@ int syi_array_translation(const sy_array_plan *plan, sy_array_work *w, sy_error 
                     rc = sy_special_hankel1_array((int)(2 * M), k * L, w->fn, err);
                 } else {
                     rc = sy_special_besselk_scaled_array((int)(2 * M), k * L, w->fn, err);
-                    /* K(kL) / (|K(k a_i)| |K(k a_j)|) with the exponentials combined */
-                    extra = cexp(-k * L + creal(k) * (ai + aj));
+                    /* K(kL) = Ks(kL) e^{-kL}; the scales already hold |K(k a)| */
+                    extra = cexp(-k * L);
                 }
                 if (rc != SY_OK) {
                     sy_error_prefix(err, "array: translation between bodies %zu and %zu, mode %zu",
