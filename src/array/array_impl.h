@@ -14,6 +14,9 @@
 #include "swellyield/waves.h"
 
 #define SY_ARRAY_PI 3.14159265358979323846
+/* Largest angular order M accepted (stack buffers of 4M+1 phases; far beyond any
+ * useful truncation for bodies that are not touching). */
+#define SY_ARRAY_MAX_ORDER 64
 
 struct sy_array_plan {
     sy_array_settings set;
@@ -37,6 +40,7 @@ struct sy_array_plan {
     int *dof_mode;             /* per dof, 1..5 */
     size_t n_rad;              /* radiating dofs (floats only) */
     size_t *rad_dof;           /* per radiating column: its dof index */
+    size_t *rad_first;         /* per body, length N + 1: its first radiating column */
     size_t n_rhs;              /* n_headings + n_rad */
     size_t dropped;            /* (pair, evanescent mode) couplings dropped */
 };
@@ -48,13 +52,15 @@ struct sy_array_work {
     sy_body_work **bwork;             /* per type */
     sy_body_waves **bwaves;           /* per type */
     double *scale;                    /* per type: Q x (M+1), s_{q|n|} */
-    double complex *tmat;             /* n_u x n_u, T~ */
+    double complex *pairfn;           /* per ordered pair slot i < j (i N + j), per depth
+                                         mode q: orders 0..2M of H_p(k0 L) (q = 0) or
+                                         K_p(kq L) (q >= 1), (4M+1) values with room */
     double complex *mat;              /* n_u x n_u, I - D~ T~, then its LU */
     int *pivots;                      /* n_u (lapack_int) */
     double complex *inc;              /* n_u x n_rhs: direct incident alpha, then total */
     double complex *sol;              /* n_u x n_rhs: right-hand sides, then beta */
     double complex *fn;               /* 2M + 2 Bessel values */
-    double complex *phase;            /* 4M + 1 values e^{i p alpha}, p = -2M..2M */
+    double complex *blk;              /* (2M+1)^2: one translation block */
     double complex *force;            /* n_dof x n_rhs */
     int factored;                     /* mat holds a valid LU */
     double complex omega;             /* of the last factorisation */
@@ -63,8 +69,13 @@ struct sy_array_work {
 /* Fill work->roots, body results and scalings at omega (steps 1-2 of a solve). */
 int syi_array_prepare(const sy_array_plan *plan, double complex omega, sy_array_work *work,
                       sy_error *err);
-/* Fill work->tmat with T~ (needs prepare). */
+/* Bessel rows of every coupled pair and depth mode at the prepared omega (needs prepare). */
 int syi_array_translation(const sy_array_plan *plan, sy_array_work *work, sy_error *err);
+/* The (2M+1) x (2M+1) block T~^{ij}_q (row m of body i, column n of body j, row-major):
+ * alpha^i_{qm} += sum_n T~[m, n] beta^j_{qn}. Needs syi_array_translation; q must be
+ * < pair_nq[i N + j]. */
+void syi_array_block(const sy_array_plan *plan, const sy_array_work *work, size_t i, size_t j,
+                     size_t q, double complex *out);
 /* Scale s_{qn} of body type t at depth mode q, order n (any sign). */
 static inline double syi_array_scale(const sy_array_plan *plan, const sy_array_work *work,
                                      size_t t, size_t q, long n)

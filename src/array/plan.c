@@ -26,8 +26,9 @@ static int check_settings(const sy_array_settings *s, sy_error *err)
         return sy_error_set(err, SY_EINVAL, "array: rho and g must be > 0, got %g, %g", s->rho, s->g);
     if (!(s->tolerance > 0.0 && s->tolerance < 1.0))
         return sy_error_set(err, SY_EINVAL, "array: tolerance must be in (0, 1), got %g", s->tolerance);
-    if (s->n_order < 1)
-        return sy_error_set(err, SY_EINVAL, "array: angular order M must be >= 1, got %zu", s->n_order);
+    if (s->n_order < 1 || s->n_order > SY_ARRAY_MAX_ORDER)
+        return sy_error_set(err, SY_EINVAL, "array: angular order M must be in 1..%d, got %zu",
+                            SY_ARRAY_MAX_ORDER, s->n_order);
     if (s->n_depth < 1)
         return sy_error_set(err, SY_EINVAL, "array: need at least one depth mode, got %zu", s->n_depth);
     if (!(s->margin >= 0.0))
@@ -103,11 +104,13 @@ static int layout(sy_array_plan *p, sy_error *err)
     p->dof_body = malloc((p->n_dof + 1) * sizeof *p->dof_body);
     p->dof_mode = malloc((p->n_dof + 1) * sizeof *p->dof_mode);
     p->rad_dof = malloc((p->n_rad + 1) * sizeof *p->rad_dof);
-    if (p->dof_body == NULL || p->dof_mode == NULL || p->rad_dof == NULL)
+    p->rad_first = malloc((N + 1) * sizeof *p->rad_first);
+    if (p->dof_body == NULL || p->dof_mode == NULL || p->rad_dof == NULL || p->rad_first == NULL)
         return sy_error_set(err, SY_ENOMEM, "array plan index maps for %zu dofs", p->n_dof);
     size_t d = 0, r = 0;
     for (size_t i = 0; i < N; i++) {
         const sy_array_type *t = &p->types[p->bodies[i].type];
+        p->rad_first[i] = r;
         for (int m = 0; m < SY_BODY_NMODES; m++) {
             if (!(t->modes & (1u << m)))
                 continue;
@@ -118,6 +121,7 @@ static int layout(sy_array_plan *p, sy_error *err)
             d++;
         }
     }
+    p->rad_first[N] = r;
     return SY_OK;
 }
 
@@ -222,6 +226,7 @@ void sy_array_plan_free(sy_array_plan *p)
     free(p->dof_body);
     free(p->dof_mode);
     free(p->rad_dof);
+    free(p->rad_first);
     free(p);
 }
 

@@ -2,7 +2,7 @@
  * per body type, the translation matrix T~ (Graf's addition theorem, array.h), the
  * interaction matrix I - D~ T~ (one LU, LAPACKE zgetrf row-major), all right-hand sides
  * at once (headings, then every radiating dof), then
- *   total incident alpha = direct incident + T~ beta   (one zgemm),
+ *   total incident alpha = direct incident + T~ beta   (zgemm per pair block),
  *   forces F = G~ alpha,   X = F (headings),   Z = Z_iso - F (radiation columns).
  * Scaled basis and index maps: array_impl.h. Incident wave of unit amplitude about the
  * centre c_i of body i (Jacobi-Anger): a_{0n} = -(i g / omega) P_i i^n e^{-i n beta},
@@ -28,16 +28,16 @@ int sy_array_work_alloc(sy_array_work **out, const sy_array_plan *plan, sy_error
         w->bwork = calloc(plan->n_types, sizeof *w->bwork);
         w->bwaves = calloc(plan->n_types, sizeof *w->bwaves);
         w->scale = malloc(plan->n_types * plan->Q * (M + 1) * sizeof *w->scale);
-        w->tmat = malloc(nu * nu * sizeof *w->tmat);
+        w->pairfn = malloc((plan->n_bodies * plan->n_bodies * plan->Q * (2 * M + 1)) * sizeof *w->pairfn);
+        w->blk = malloc((2 * M + 1) * (2 * M + 1) * sizeof *w->blk);
         w->mat = malloc(nu * nu * sizeof *w->mat);
         w->pivots = malloc(nu * sizeof(lapack_int));
         w->inc = malloc(nu * nr * sizeof *w->inc);
         w->sol = malloc(nu * nr * sizeof *w->sol);
         w->fn = malloc((2 * M + 2) * sizeof *w->fn);
-        w->phase = malloc((4 * M + 1) * sizeof *w->phase);
         w->force = malloc((plan->n_dof + 1) * nr * sizeof *w->force);
-        ok = w->roots_k && w->bwork && w->bwaves && w->scale && w->tmat && w->mat && w->pivots &&
-             w->inc && w->sol && w->fn && w->phase && w->force;
+        ok = w->roots_k && w->bwork && w->bwaves && w->scale && w->pairfn && w->blk && w->mat && w->pivots &&
+             w->inc && w->sol && w->fn && w->force;
     }
     if (!ok) {
         sy_array_work_free(w);
@@ -69,13 +69,13 @@ void sy_array_work_free(sy_array_work *w)
     free(w->bwaves);
     free(w->roots_k);
     free(w->scale);
-    free(w->tmat);
+    free(w->pairfn);
+    free(w->blk);
     free(w->mat);
     free(w->pivots);
     free(w->inc);
     free(w->sol);
     free(w->fn);
-    free(w->phase);
     free(w->force);
     free(w);
 }
@@ -167,69 +167,62 @@ int syi_array_prepare(const sy_array_plan *plan, double complex omega, sy_array_
 
 int syi_array_translation(const sy_array_plan *plan, sy_array_work *w, sy_error *err)
 {
-    const size_t N = plan->n_bodies, M = plan->M, nn = plan->nn, nu = plan->n_unknowns;
-    const long Ml = (long)M;
-    memset(w->tmat, 0, nu * nu * sizeof *w->tmat);
-    for (size_t i = 0; i < N; i++) {
-        size_t ti = plan->bodies[i].type;
+    const size_t N = plan->n_bodies, M = plan->M, Q = plan->Q, np = 2 * M + 1;
+    for (size_t i = 0; i < N; i++)
         for (size_t j = i + 1; j < N; j++) {
-            size_t tj = plan->bodies[j].type;
-            double L = plan->pair_L[i * N + j], alpha = plan->pair_alpha[i * N + j];
-            /* e^{i p alpha}, p = -2M..2M */
-            double complex e1 = cexp(I * alpha);
-            w->phase[2 * M] = 1.0;
-            for (size_t p = 1; p <= 2 * M; p++) {
-                w->phase[2 * M + p] = w->phase[2 * M + p - 1] * e1;
-                w->phase[2 * M - p] = conj(w->phase[2 * M + p]);
-            }
+            double L = plan->pair_L[i * N + j];
             for (size_t q = 0; q < plan->pair_nq[i * N + j]; q++) {
-                double complex k = wavenumber(w, q), extra = 1.0;
+                double complex k = wavenumber(w, q);
+                double complex *f = &w->pairfn[((i * N + j) * Q + q) * np];
                 int rc;
                 if (q == 0) {
-                    rc = sy_special_hankel1_array((int)(2 * M), k * L, w->fn, err);
+                    rc = sy_special_hankel1_array((int)(2 * M), k * L, f, err);
                 } else {
-                    rc = sy_special_besselk_scaled_array((int)(2 * M), k * L, w->fn, err);
-                    /* K(kL) = Ks(kL) e^{-kL}; the scales already hold |K(k a)| */
-                    extra = cexp(-k * L);
+                    rc = sy_special_besselk_scaled_array((int)(2 * M), k * L, f, err);
+                    /* K(kL) = Ks(kL) e^{-kL}; the scales hold |K(k a)| itself */
+                    double complex e = cexp(-k * L);
+                    for (size_t p = 0; p < np; p++)
+                        f[p] *= e;
                 }
                 if (rc != SY_OK) {
                     sy_error_prefix(err, "array: translation between bodies %zu and %zu, mode %zu",
                                     i, j, q);
                     return rc;
                 }
-                for (long m = -Ml; m <= Ml; m++) {
-                    double si = syi_array_scale(plan, w, ti, q, m);
-                    double sj_m = syi_array_scale(plan, w, tj, q, m);
-                    size_t row_i = plan->unk_off[i] + q * nn + (size_t)(m + Ml);
-                    size_t row_j = plan->unk_off[j] + q * nn + (size_t)(m + Ml);
-                    for (long n = -Ml; n <= Ml; n++) {
-                        long pidx = n - m;
-                        long ap = pidx < 0 ? -pidx : pidx;
-                        double complex f = w->fn[ap] * extra;
-                        /* H_{-p} = (-1)^p H_p;  K_{-p} = K_p */
-                        int odd_p = (int)(ap & 1);
-                        if (q == 0 && pidx < 0 && odd_p)
-                            f = -f;
-                        double complex ph = w->phase[2 * M + pidx];
-                        /* block (i <- j): direction alpha; block (j <- i): alpha + pi,
-                         * e^{i p (alpha + pi)} = (-1)^p e^{i p alpha} */
-                        double complex tij = f * ph, tji = odd_p ? -tij : tij;
-                        if (q > 0 && (m & 1)) {  /* (-1)^m of the K addition theorem */
-                            tij = -tij;
-                            tji = -tji;
-                        }
-                        double sj_n = syi_array_scale(plan, w, tj, q, n);
-                        double si_n = syi_array_scale(plan, w, ti, q, n);
-                        w->tmat[row_i * nu + plan->unk_off[j] + q * nn + (size_t)(n + Ml)] =
-                            tij / (si * sj_n);
-                        w->tmat[row_j * nu + plan->unk_off[i] + q * nn + (size_t)(n + Ml)] =
-                            tji / (sj_m * si_n);
-                    }
-                }
             }
         }
-    }
     return SY_OK;
+}
+
+void syi_array_block(const sy_array_plan *plan, const sy_array_work *w, size_t i, size_t j, size_t q,
+                     double complex *out)
+{
+    const size_t N = plan->n_bodies, M = plan->M, Q = plan->Q, nn = plan->nn;
+    const long Ml = (long)M;
+    const size_t lo = i < j ? i : j, hi = i < j ? j : i;
+    const double complex *f = &w->pairfn[((lo * N + hi) * Q + q) * (2 * M + 1)];
+    /* alpha is the direction from centre j to centre i (pair_alpha[i N + j]) */
+    const double complex e1 = cexp(I * plan->pair_alpha[i * N + j]);
+    const size_t ti = plan->bodies[i].type, tj = plan->bodies[j].type;
+    double complex ph[4 * SY_ARRAY_MAX_ORDER + 1], *phase = ph + 2 * M;
+    phase[0] = 1.0;
+    for (size_t p = 1; p <= 2 * M; p++) {
+        phase[p] = phase[p - 1] * e1;
+        phase[-(long)p] = conj(phase[p]) / (creal(e1) * creal(e1) + cimag(e1) * cimag(e1));
+    }
+    for (long m = -Ml; m <= Ml; m++) {
+        double si = syi_array_scale(plan, w, ti, q, m);
+        /* (-1)^m of the K addition theorem (array.h) */
+        double sgn_m = (q > 0 && (m & 1)) ? -1.0 : 1.0;
+        double complex *row = &out[(size_t)(m + Ml) * nn];
+        for (long n = -Ml; n <= Ml; n++) {
+            long p = n - m, ap = p < 0 ? -p : p;
+            double complex v = f[ap];
+            if (q == 0 && p < 0 && (ap & 1))   /* H_{-p} = (-1)^p H_p; K_{-p} = K_p */
+                v = -v;
+            row[n + Ml] = sgn_m * v * phase[p] / (si * syi_array_scale(plan, w, tj, q, n));
+        }
+    }
 }
 
 /* D~ of body type t at order n (|n| <= M) between depth modes q, qp. */
@@ -241,35 +234,77 @@ static double complex dscaled(const sy_array_plan *plan, const sy_array_work *w,
            syi_array_scale(plan, w, t, qp, n);
 }
 
-/* mat = I - D~ T~ (rows of body i mix the T~ rows of the same order over depth modes). */
-static void build_matrix(const sy_array_plan *plan, sy_array_work *w)
+/* mat = I - D~ T~, block by block: rows (i, q, m), columns (j, q', n) get
+ * -D~^i_m(q, q') T~^{ij}_{q'}[m, n]. With radiation != 0 the same pass fills the direct
+ * incident columns of every radiating dof of body j on body i: inc = T~^{ij} rho^j. */
+static void assemble(const sy_array_plan *plan, sy_array_work *w, int radiation)
 {
-    const size_t N = plan->n_bodies, nn = plan->nn, nu = plan->n_unknowns;
+    const size_t N = plan->n_bodies, nn = plan->nn, nu = plan->n_unknowns, nr = plan->n_rhs;
+    const size_t Q = plan->Q;
     const long Ml = (long)plan->M;
     memset(w->mat, 0, nu * nu * sizeof *w->mat);
+    for (size_t u = 0; u < nu; u++)
+        w->mat[u * nu + u] = 1.0;
     for (size_t i = 0; i < N; i++) {
-        size_t t = plan->bodies[i].type, nq = plan->nq[i];
-        for (size_t q = 0; q < nq; q++)
-            for (long m = -Ml; m <= Ml; m++) {
-                size_t row = plan->unk_off[i] + q * nn + (size_t)(m + Ml);
-                double complex *out = &w->mat[row * nu];
-                for (size_t qp = 0; qp < nq; qp++) {
-                    double complex d = dscaled(plan, w, t, m, q, qp);
-                    if (d == 0.0)
-                        continue;
-                    const double complex *trow = &w->tmat[(plan->unk_off[i] + qp * nn + (size_t)(m + Ml)) * nu];
-                    for (size_t c = 0; c < nu; c++)
-                        out[c] -= d * trow[c];
+        size_t ti = plan->bodies[i].type, nqi = plan->nq[i];
+        for (size_t j = 0; j < N; j++) {
+            if (j == i)
+                continue;
+            size_t tj = plan->bodies[j].type;
+            for (size_t qp = 0; qp < plan->pair_nq[i * N + j]; qp++) {
+                syi_array_block(plan, w, i, j, qp, w->blk);
+                size_t col0 = plan->unk_off[j] + qp * nn;
+                for (size_t q = 0; q < nqi; q++)
+                    for (long m = -Ml; m <= Ml; m++) {
+                        double complex d = dscaled(plan, w, ti, m, q, qp);
+                        if (d == 0.0)
+                            continue;
+                        double complex *out = &w->mat[(plan->unk_off[i] + q * nn + (size_t)(m + Ml)) * nu + col0];
+                        const double complex *b = &w->blk[(size_t)(m + Ml) * nn];
+                        for (size_t c = 0; c < nn; c++)
+                            out[c] -= d * b[c];
+                    }
+                if (!radiation || plan->types[tj].geom.kind != SY_BODY_FLOAT)
+                    continue;
+                for (size_t r = plan->rad_first[j]; r < plan->rad_first[j + 1]; r++) {
+                    int mode = plan->dof_mode[plan->rad_dof[r]];
+                    const double complex *R = &w->bwaves[tj]->radiation[((size_t)(mode - 1) * Q + qp) * nn];
+                    size_t col = plan->n_headings + r;
+                    for (long m = -Ml; m <= Ml; m++) {
+                        const double complex *b = &w->blk[(size_t)(m + Ml) * nn];
+                        double complex acc = 0.0;
+                        for (long n = -Ml; n <= Ml; n++)
+                            acc += b[n + Ml] * R[n + Ml] * syi_array_scale(plan, w, tj, qp, n);
+                        w->inc[(plan->unk_off[i] + qp * nn + (size_t)(m + Ml)) * nr + col] = acc;
+                    }
                 }
-                out[row] += 1.0;
             }
+        }
     }
+}
+
+/* inc += T~ sol (total incident = direct + translated scattered), block by block. */
+static void add_translated(const sy_array_plan *plan, sy_array_work *w)
+{
+    const size_t N = plan->n_bodies, nn = plan->nn, nr = plan->n_rhs;
+    const double complex one = 1.0;
+    for (size_t i = 0; i < N; i++)
+        for (size_t j = 0; j < N; j++) {
+            if (j == i)
+                continue;
+            for (size_t q = 0; q < plan->pair_nq[i * N + j]; q++) {
+                syi_array_block(plan, w, i, j, q, w->blk);
+                cblas_zgemm(CblasRowMajor, CblasNoTrans, CblasNoTrans, (blasint)nn, (blasint)nr,
+                            (blasint)nn, &one, w->blk, (blasint)nn,
+                            &w->sol[(plan->unk_off[j] + q * nn) * nr], (blasint)nr, &one,
+                            &w->inc[(plan->unk_off[i] + q * nn) * nr], (blasint)nr);
+            }
+        }
 }
 
 static int factorise(const sy_array_plan *plan, sy_array_work *w, double complex omega, sy_error *err)
 {
     const size_t nu = plan->n_unknowns;
-    build_matrix(plan, w);
     lapack_int info = LAPACKE_zgetrf(LAPACK_ROW_MAJOR, (lapack_int)nu, (lapack_int)nu, w->mat,
                                      (lapack_int)nu, (lapack_int *)w->pivots);
     if (info > 0)
@@ -283,15 +318,12 @@ static int factorise(const sy_array_plan *plan, sy_array_work *w, double complex
     return SY_OK;
 }
 
-/* Direct incident waves (columns of w->inc, scaled alpha) and right-hand sides D~ inc
- * (columns of w->sol). */
-static void right_hand_sides(const sy_array_plan *plan, sy_array_work *w, double complex omega)
+/* Direct incident ambient waves: heading columns of w->inc (scaled alpha). */
+static void incident_waves(const sy_array_plan *plan, sy_array_work *w, double complex omega)
 {
-    const size_t N = plan->n_bodies, nn = plan->nn, nu = plan->n_unknowns, nr = plan->n_rhs;
-    const size_t Q = plan->Q;
+    const size_t N = plan->n_bodies, nr = plan->n_rhs;
     const long Ml = (long)plan->M;
     const double complex k0 = w->roots.k0, amp = -I * plan->set.g / omega;
-    memset(w->inc, 0, nu * nr * sizeof *w->inc);
     /* headings: only q = 0 of the ambient wave is non-zero */
     for (size_t i = 0; i < N; i++) {
         size_t t = plan->bodies[i].type;
@@ -310,24 +342,13 @@ static void right_hand_sides(const sy_array_plan *plan, sy_array_work *w, double
             }
         }
     }
-    /* radiation columns: incident on every body = T~ rho, rho = S R of the moving body */
-    for (size_t r = 0; r < plan->n_rad; r++) {
-        size_t d = plan->rad_dof[r], i = plan->dof_body[d], t = plan->bodies[i].type;
-        int mode = plan->dof_mode[d];
-        size_t col = plan->n_headings + r;
-        const double complex *R = &w->bwaves[t]->radiation[(size_t)(mode - 1) * Q * nn];
-        for (size_t row = 0; row < nu; row++) {
-            const double complex *trow = &w->tmat[row * nu + plan->unk_off[i]];
-            double complex acc = 0.0;
-            for (size_t q = 0; q < plan->nq[i]; q++)
-                for (long n = -Ml; n <= Ml; n++) {
-                    double complex rho_qn = R[q * nn + (size_t)(n + Ml)] * syi_array_scale(plan, w, t, q, n);
-                    acc += trow[q * nn + (size_t)(n + Ml)] * rho_qn;
-                }
-            w->inc[row * nr + col] = acc;
-        }
-    }
-    /* sol = D~ inc */
+}
+
+/* Right-hand sides sol = D~ inc (every column). */
+static void apply_diffraction(const sy_array_plan *plan, sy_array_work *w)
+{
+    const size_t N = plan->n_bodies, nn = plan->nn, nr = plan->n_rhs;
+    const long Ml = (long)plan->M;
     for (size_t i = 0; i < N; i++) {
         size_t t = plan->bodies[i].type, nq = plan->nq[i];
         for (size_t q = 0; q < nq; q++)
@@ -361,7 +382,10 @@ int sy_array_solve(const sy_array_plan *plan, double complex omega, sy_array_wor
         rc = syi_array_translation(plan, w, err);
     if (rc != SY_OK)
         return rc;
-    right_hand_sides(plan, w, omega);
+    memset(w->inc, 0, nu * nr * sizeof *w->inc);
+    incident_waves(plan, w, omega);
+    assemble(plan, w, 1);
+    apply_diffraction(plan, w);
     rc = factorise(plan, w, omega, err);
     if (rc != SY_OK)
         return rc;
@@ -370,10 +394,7 @@ int sy_array_solve(const sy_array_plan *plan, double complex omega, sy_array_wor
                                          (lapack_int)nu, (const lapack_int *)w->pivots, w->sol, (lapack_int)nr);
         if (info != 0)
             return sy_error_set(err, SY_EINVAL, "array: zgetrs argument %d invalid", (int)-info);
-        /* total incident alpha = inc + T~ beta, into sol */
-        const double complex one = 1.0;
-        cblas_zgemm(CblasRowMajor, CblasNoTrans, CblasNoTrans, (blasint)nu, (blasint)nr, (blasint)nu,
-                    &one, w->tmat, (blasint)nu, w->sol, (blasint)nr, &one, w->inc, (blasint)nr);
+        add_translated(plan, w);
     }
     /* forces F[d, c] = sum G~ alpha_total */
     for (size_t d = 0; d < nd; d++) {
@@ -438,8 +459,10 @@ int sy_array_interaction_logdet(const sy_array_plan *plan, double complex omega,
     int rc = syi_array_prepare(plan, omega, w, err);
     if (rc == SY_OK)
         rc = syi_array_translation(plan, w, err);
-    if (rc == SY_OK)
-        rc = factorise(plan, w, omega, err);
+    if (rc != SY_OK)
+        return rc;
+    assemble(plan, w, 0);
+    rc = factorise(plan, w, omega, err);
     if (rc != SY_OK)
         return rc;
     const size_t nu = plan->n_unknowns;

@@ -71,11 +71,20 @@ int main(void)
     srand(12345);
     for (size_t u = 0; u < nu; u++)
         beta_v[u] = (rand() / (double)RAND_MAX - 0.5) + I * (rand() / (double)RAND_MAX - 0.5);
-    for (size_t u = 0; u < nu; u++) {
+    /* alpha = T~ beta from the module's translation blocks */
+    double complex *blk = malloc(nn * nn * sizeof *blk);
+    for (size_t u = 0; u < nu; u++)
         alpha[u] = 0.0;
-        for (size_t c = 0; c < nu; c++)
-            alpha[u] += w->tmat[u * nu + c] * beta_v[c];
-    }
+    for (size_t i = 0; i < N; i++)
+        for (size_t j = 0; j < N; j++)
+            for (size_t q = 0; j != i && q < plan->pair_nq[i * N + j]; q++) {
+                syi_array_block(plan, w, i, j, q, blk);
+                for (size_t m = 0; m < nn; m++)
+                    for (size_t n = 0; n < nn; n++)
+                        alpha[plan->unk_off[i] + q * nn + m] +=
+                            blk[m * nn + n] * beta_v[plan->unk_off[j] + q * nn + n];
+            }
+    free(blk);
     for (size_t i = 0; i < N; i++) {
         size_t ti = plan->bodies[i].type;
         double ai = plan->types[ti].geom.radius;
