@@ -34,9 +34,9 @@ static sy_array_type body_type(int use_float)
     return t;
 }
 
-static int make_plan(sy_array_plan **plan, size_t N, int use_float, sy_error *err)
+static int make_plan_q(sy_array_plan **plan, size_t N, int use_float, size_t Q, sy_error *err)
 {
-    sy_array_settings s = {30.0, 1025.0, 9.81, 1e-6, 6, 4, 0.0};
+    sy_array_settings s = {30.0, 1025.0, 9.81, 1e-6, 6, Q, 0.0};
     sy_array_type t = body_type(use_float);
     double beta[36];
     for (int b = 0; b < 36; b++)
@@ -48,6 +48,11 @@ static int make_plan(sy_array_plan **plan, size_t N, int use_float, sy_error *er
     int rc = sy_array_plan_create(plan, &s, &t, 1, bodies, N, beta, 36, err);
     free(bodies);
     return rc;
+}
+
+static int make_plan(sy_array_plan **plan, size_t N, int use_float, sy_error *err)
+{
+    return make_plan_q(plan, N, use_float, 4, err);
 }
 
 /* seconds for one zgetrf of a random diagonally dominant n x n complex matrix */
@@ -129,6 +134,32 @@ int main(void)
         }
         printf("bench_array: cost exponent (least squares, N >= 9): time ~ N^%.2f\n", sxy / sxx);
     }
+    /* N = 100 with fewer depth modes and with 2 BLAS threads */
+    for (size_t Q = 1; Q <= 4; Q *= 2)
+        for (int bt = 1; bt <= 2; bt++) {
+            sy_array_plan *plan = NULL;
+            sy_array_work *work = NULL;
+            sy_array_hydro *res = NULL;
+            openblas_set_num_threads(bt);
+            int rc = make_plan_q(&plan, 100, use_float, Q, &err);
+            if (rc == SY_OK)
+                rc = sy_array_work_alloc(&work, plan, &err);
+            if (rc == SY_OK)
+                rc = sy_array_hydro_alloc(&res, plan, &err);
+            double t0 = now();
+            if (rc == SY_OK)
+                rc = sy_array_solve(plan, 0.8, work, res, &err);
+            double t = now() - t0;
+            if (rc == SY_OK)
+                printf("bench_array: N = 100, Q = %zu (%zu unknowns), %d BLAS thread%s: %.3f s per frequency\n", Q,
+                       sy_array_plan_n_unknowns(plan), bt, bt > 1 ? "s" : "", t);
+            else
+                printf("bench_array: N = 100, Q = %zu failed: %s\n", Q, err.msg);
+            sy_array_hydro_free(res);
+            sy_array_work_free(work);
+            sy_array_plan_free(plan);
+        }
+    openblas_set_num_threads(1);
     /* 3 x 3 array, 120 frequencies x 36 headings, sweep on 2 threads */
     {
         sy_array_plan *plan = NULL;

@@ -55,10 +55,13 @@ struct sy_array_work {
     double complex *pairfn;           /* per ordered pair slot i < j (i N + j), per depth
                                          mode q: orders 0..2M of H_p(k0 L) (q = 0) or
                                          K_p(kq L) (q >= 1), (4M+1) values with room */
-    double complex *mat;              /* n_u x n_u, I - D~ T~, then its LU */
+    double complex *mat;              /* n_u x n_u row-major I - D~ T~, then the LU of its
+                                         transpose (column-major view, solve.c) */
     int *pivots;                      /* n_u (lapack_int) */
-    double complex *inc;              /* n_u x n_rhs: direct incident alpha, then total */
-    double complex *sol;              /* n_u x n_rhs: right-hand sides, then beta */
+    /* right-hand sides column after column: element u of column c at [c n_u + u];
+     * columns: headings, then radiating dofs (plan->rad_dof) */
+    double complex *inc;              /* direct incident alpha, then total incident */
+    double complex *sol;              /* right-hand sides D~ inc, then beta */
     double complex *fn;               /* 2M + 2 Bessel values */
     double complex *blk;              /* (2M+1)^2: one translation block */
     double complex *force;            /* n_dof x n_rhs */

@@ -11,7 +11,6 @@
 
 #include "swellyield/special.h"
 
-#include <cblas.h>
 #include <lapacke.h>
 #include <math.h>
 #include <stdlib.h>
@@ -109,6 +108,14 @@ void sy_array_hydro_free(sy_array_hydro *r)
     free(r->damping);
     free(r->excitation);
     free(r);
+}
+
+/* a * b without C99 Annex G's infinity recovery (a branch and a library call per
+ * product in the hot loops; the values here are finite by construction). */
+static inline double complex cmul(double complex a, double complex b)
+{
+    double ar = creal(a), ai = cimag(a), br = creal(b), bi = cimag(b);
+    return CMPLX(ar * br - ai * bi, ar * bi + ai * br);
 }
 
 static double complex wavenumber(const sy_array_work *w, size_t q)
@@ -239,7 +246,7 @@ static double complex dscaled(const sy_array_plan *plan, const sy_array_work *w,
  * incident columns of every radiating dof of body j on body i: inc = T~^{ij} rho^j. */
 static void assemble(const sy_array_plan *plan, sy_array_work *w, int radiation)
 {
-    const size_t N = plan->n_bodies, nn = plan->nn, nu = plan->n_unknowns, nr = plan->n_rhs;
+    const size_t N = plan->n_bodies, nn = plan->nn, nu = plan->n_unknowns;
     const size_t Q = plan->Q;
     const long Ml = (long)plan->M;
     memset(w->mat, 0, nu * nu * sizeof *w->mat);
@@ -262,7 +269,7 @@ static void assemble(const sy_array_plan *plan, sy_array_work *w, int radiation)
                         double complex *out = &w->mat[(plan->unk_off[i] + q * nn + (size_t)(m + Ml)) * nu + col0];
                         const double complex *b = &w->blk[(size_t)(m + Ml) * nn];
                         for (size_t c = 0; c < nn; c++)
-                            out[c] -= d * b[c];
+                            out[c] -= cmul(d, b[c]);
                     }
                 if (!radiation || plan->types[tj].geom.kind != SY_BODY_FLOAT)
                     continue;
@@ -275,7 +282,7 @@ static void assemble(const sy_array_plan *plan, sy_array_work *w, int radiation)
                         double complex acc = 0.0;
                         for (long n = -Ml; n <= Ml; n++)
                             acc += b[n + Ml] * R[n + Ml] * syi_array_scale(plan, w, tj, qp, n);
-                        w->inc[(plan->unk_off[i] + qp * nn + (size_t)(m + Ml)) * nr + col] = acc;
+                        w->inc[col * nu + plan->unk_off[i] + qp * nn + (size_t)(m + Ml)] = acc;
                     }
                 }
             }
@@ -283,21 +290,29 @@ static void assemble(const sy_array_plan *plan, sy_array_work *w, int radiation)
     }
 }
 
-/* inc += T~ sol (total incident = direct + translated scattered), block by block. */
+/* inc += T~ sol (total incident = direct + translated scattered), block by block.
+ * Right-hand sides are stored column after column (inc[c n_u + u]). */
 static void add_translated(const sy_array_plan *plan, sy_array_work *w)
 {
-    const size_t N = plan->n_bodies, nn = plan->nn, nr = plan->n_rhs;
-    const double complex one = 1.0;
+    const size_t N = plan->n_bodies, nn = plan->nn, nr = plan->n_rhs, nu = plan->n_unknowns;
     for (size_t i = 0; i < N; i++)
         for (size_t j = 0; j < N; j++) {
             if (j == i)
                 continue;
             for (size_t q = 0; q < plan->pair_nq[i * N + j]; q++) {
                 syi_array_block(plan, w, i, j, q, w->blk);
-                cblas_zgemm(CblasRowMajor, CblasNoTrans, CblasNoTrans, (blasint)nn, (blasint)nr,
-                            (blasint)nn, &one, w->blk, (blasint)nn,
-                            &w->sol[(plan->unk_off[j] + q * nn) * nr], (blasint)nr, &one,
-                            &w->inc[(plan->unk_off[i] + q * nn) * nr], (blasint)nr);
+                size_t ri = plan->unk_off[i] + q * nn, cj = plan->unk_off[j] + q * nn;
+                for (size_t c = 0; c < nr; c++) {
+                    const double complex *x = &w->sol[c * nu + cj];
+                    double complex *y = &w->inc[c * nu + ri];
+                    for (size_t m = 0; m < nn; m++) {
+                        const double complex *b = &w->blk[m * nn];
+                        double complex acc = 0.0;
+                        for (size_t n = 0; n < nn; n++)
+                            acc += cmul(b[n], x[n]);
+                        y[m] += acc;
+                    }
+                }
             }
         }
 }
@@ -305,7 +320,10 @@ static void add_translated(const sy_array_plan *plan, sy_array_work *w)
 static int factorise(const sy_array_plan *plan, sy_array_work *w, double complex omega, sy_error *err)
 {
     const size_t nu = plan->n_unknowns;
-    lapack_int info = LAPACKE_zgetrf(LAPACK_ROW_MAJOR, (lapack_int)nu, (lapack_int)nu, w->mat,
+    /* mat is row-major; read as column-major it is its transpose, whose LU LAPACK computes
+     * in place (LAPACKE's row-major path would copy and transpose n_u^2 values twice).
+     * Solves then use trans = 'T'; det(A^T) = det(A). */
+    lapack_int info = LAPACKE_zgetrf(LAPACK_COL_MAJOR, (lapack_int)nu, (lapack_int)nu, w->mat,
                                      (lapack_int)nu, (lapack_int *)w->pivots);
     if (info > 0)
         return sy_error_set(err, SY_ESINGULAR,
@@ -321,7 +339,7 @@ static int factorise(const sy_array_plan *plan, sy_array_work *w, double complex
 /* Direct incident ambient waves: heading columns of w->inc (scaled alpha). */
 static void incident_waves(const sy_array_plan *plan, sy_array_work *w, double complex omega)
 {
-    const size_t N = plan->n_bodies, nr = plan->n_rhs;
+    const size_t N = plan->n_bodies, nu = plan->n_unknowns;
     const long Ml = (long)plan->M;
     const double complex k0 = w->roots.k0, amp = -I * plan->set.g / omega;
     /* headings: only q = 0 of the ambient wave is non-zero */
@@ -335,8 +353,8 @@ static void incident_waves(const sy_array_plan *plan, sy_array_work *w, double c
             for (long n = 0; n <= Ml; n++) {
                 /* n >= 0: i^n e^{-i n beta};  -n: i^{-n} e^{i n beta} */
                 double s = syi_array_scale(plan, w, t, 0, n);
-                w->inc[(plan->unk_off[i] + (size_t)(n + Ml)) * nr + b] = fp / s;
-                w->inc[(plan->unk_off[i] + (size_t)(Ml - n)) * nr + b] = fm / s;
+                w->inc[b * nu + plan->unk_off[i] + (size_t)(n + Ml)] = fp / s;
+                w->inc[b * nu + plan->unk_off[i] + (size_t)(Ml - n)] = fm / s;
                 fp *= step;
                 fm /= step;
             }
@@ -347,20 +365,21 @@ static void incident_waves(const sy_array_plan *plan, sy_array_work *w, double c
 /* Right-hand sides sol = D~ inc (every column). */
 static void apply_diffraction(const sy_array_plan *plan, sy_array_work *w)
 {
-    const size_t N = plan->n_bodies, nn = plan->nn, nr = plan->n_rhs;
+    const size_t N = plan->n_bodies, nn = plan->nn, nr = plan->n_rhs, nu = plan->n_unknowns;
     const long Ml = (long)plan->M;
+    memset(w->sol, 0, nu * nr * sizeof *w->sol);
     for (size_t i = 0; i < N; i++) {
         size_t t = plan->bodies[i].type, nq = plan->nq[i];
         for (size_t q = 0; q < nq; q++)
             for (long m = -Ml; m <= Ml; m++) {
                 size_t row = plan->unk_off[i] + q * nn + (size_t)(m + Ml);
-                double complex *out = &w->sol[row * nr];
-                memset(out, 0, nr * sizeof *out);
                 for (size_t qp = 0; qp < nq; qp++) {
                     double complex dd = dscaled(plan, w, t, m, q, qp);
-                    const double complex *in = &w->inc[(plan->unk_off[i] + qp * nn + (size_t)(m + Ml)) * nr];
+                    if (dd == 0.0)
+                        continue;
+                    size_t src = plan->unk_off[i] + qp * nn + (size_t)(m + Ml);
                     for (size_t c = 0; c < nr; c++)
-                        out[c] += dd * in[c];
+                        w->sol[c * nu + row] += cmul(dd, w->inc[c * nu + src]);
                 }
             }
     }
@@ -390,8 +409,9 @@ int sy_array_solve(const sy_array_plan *plan, double complex omega, sy_array_wor
     if (rc != SY_OK)
         return rc;
     if (nr > 0) {
-        lapack_int info = LAPACKE_zgetrs(LAPACK_ROW_MAJOR, 'N', (lapack_int)nu, (lapack_int)nr, w->mat,
-                                         (lapack_int)nu, (const lapack_int *)w->pivots, w->sol, (lapack_int)nr);
+        /* mat holds the LU of the transpose (see factorise): solve with 'T' */
+        lapack_int info = LAPACKE_zgetrs(LAPACK_COL_MAJOR, 'T', (lapack_int)nu, (lapack_int)nr, w->mat,
+                                         (lapack_int)nu, (const lapack_int *)w->pivots, w->sol, (lapack_int)nu);
         if (info != 0)
             return sy_error_set(err, SY_EINVAL, "array: zgetrs argument %d invalid", (int)-info);
         add_translated(plan, w);
@@ -408,9 +428,9 @@ int sy_array_solve(const sy_array_plan *plan, double complex omega, sy_array_wor
                 double complex g = G[q * nn + (size_t)(n + Ml)] * syi_array_scale(plan, w, t, q, n);
                 if (g == 0.0)
                     continue;
-                const double complex *a = &w->inc[(plan->unk_off[i] + q * nn + (size_t)(n + Ml)) * nr];
+                size_t u = plan->unk_off[i] + q * nn + (size_t)(n + Ml);
                 for (size_t c = 0; c < nr; c++)
-                    f[c] += g * a[c];
+                    f[c] += cmul(g, w->inc[c * nu + u]);
             }
     }
     (void)N;
@@ -490,8 +510,8 @@ int sy_array_interaction_solve(const sy_array_plan *plan, sy_array_work *w, cons
     const size_t nu = plan->n_unknowns;
     if (x != rhs)
         memcpy(x, rhs, nu * sizeof *x);
-    lapack_int info = LAPACKE_zgetrs(LAPACK_ROW_MAJOR, 'N', (lapack_int)nu, 1, w->mat, (lapack_int)nu,
-                                     (const lapack_int *)w->pivots, x, 1);
+    lapack_int info = LAPACKE_zgetrs(LAPACK_COL_MAJOR, 'T', (lapack_int)nu, 1, w->mat, (lapack_int)nu,
+                                     (const lapack_int *)w->pivots, x, (lapack_int)nu);
     if (info != 0)
         return sy_error_set(err, SY_EINVAL, "array: zgetrs argument %d invalid", (int)-info);
     return SY_OK;

@@ -71,7 +71,7 @@ static int solve_norm(setup *s, double omega, double a, size_t b, double *out, s
 static void optical(setup *s, size_t b, double beta, double omega, double *lhs, double *rhs)
 {
     const sy_array_plan *p = s->plan;
-    const size_t nth = 720, M = p->M, nr = p->n_rhs;
+    const size_t nth = 720, M = p->M;
     double complex amp = -I * G / omega, k = s->work->roots.k0;
     double sum = 0.0;
     double complex afwd = 0.0;
@@ -83,7 +83,7 @@ static void optical(setup *s, size_t b, double beta, double omega, double *lhs, 
             double complex acc = 0.0;
             for (long n = -(long)M; n <= (long)M; n++) {
                 size_t u = p->unk_off[j] + (size_t)(n + (long)M);
-                double complex bn = s->work->sol[u * nr + b] / syi_array_scale(p, s->work, 0, 0, n);
+                double complex bn = s->work->sol[b * p->n_unknowns + u] / syi_array_scale(p, s->work, 0, 0, n);
                 acc += bn / amp * cpow(-I, (double)n) * cexp(I * (double)n * th);
             }
             A += e * acc;
