@@ -232,13 +232,21 @@ void syi_array_block(const sy_array_plan *plan, const sy_array_work *w, size_t i
     }
 }
 
-/* D~ of body type t at order n (|n| <= M) between depth modes q, qp. */
+/* D~ of body type t at order n (|n| <= M) between depth modes q, qp. The body stores
+ * n >= 0. Mirror symmetry (theta -> -theta) maps the partial wave (q, n) to
+ * sigma_q(n) (q, -n), sigma_0(n) = (-1)^n (J_{-n} = (-1)^n J_n, same for H) and
+ * sigma_q(n) = 1 for q >= 1 (I_{-n} = I_n, K_{-n} = K_n), so
+ *   D_{-n}(q, qp) = sigma_q(n) sigma_qp(n) D_n(q, qp):
+ * the blocks coupling the propagating and an evanescent mode change sign for odd n. */
 static double complex dscaled(const sy_array_plan *plan, const sy_array_work *w, size_t t, long n,
                               size_t q, size_t qp)
 {
     size_t an = (size_t)(n < 0 ? -n : n), Q = plan->Q;
-    return w->bwaves[t]->diffraction[(an * Q + q) * Q + qp] * syi_array_scale(plan, w, t, q, n) *
-           syi_array_scale(plan, w, t, qp, n);
+    double complex d = w->bwaves[t]->diffraction[(an * Q + q) * Q + qp] *
+                       syi_array_scale(plan, w, t, q, n) * syi_array_scale(plan, w, t, qp, n);
+    if (n < 0 && (an & 1) && ((q == 0) != (qp == 0)))
+        d = -d;
+    return d;
 }
 
 /* mat = I - D~ T~, block by block: rows (i, q, m), columns (j, q', n) get
