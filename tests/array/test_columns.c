@@ -4,6 +4,7 @@
 
 #include "array/array_impl.h"
 #include "swellyield/array.h"
+#include "fixture.h"
 
 #include <math.h>
 #include <stdlib.h>
@@ -13,11 +14,6 @@
 #define G 9.81
 #define DEPTH 10.0   /* forces normalised by F0 do not depend on h (section 9) */
 
-typedef struct {
-    sy_array_plan *plan;
-    sy_array_work *work;
-    sy_array_hydro *res;
-} setup;
 
 static int make(setup *s, const double *xy, size_t n, double a, size_t M, const double *beta,
                 size_t nb, sy_error *err)
@@ -27,21 +23,11 @@ static int make(setup *s, const double *xy, size_t n, double a, size_t M, const 
     sy_array_body *b = malloc(n * sizeof *b);
     for (size_t i = 0; i < n; i++)
         b[i] = (sy_array_body){xy[2 * i], xy[2 * i + 1], 0};
-    int rc = sy_array_plan_create(&s->plan, &set, &t, 1, b, n, beta, nb, err);
+    int rc = setup_open(s, &set, &t, 1, b, n, beta, nb, err);
     free(b);
-    if (rc == SY_OK)
-        rc = sy_array_work_alloc(&s->work, s->plan, err);
-    if (rc == SY_OK)
-        rc = sy_array_hydro_alloc(&s->res, s->plan, err);
     return rc;
 }
 
-static void unmake(setup *s)
-{
-    sy_array_hydro_free(s->res);
-    sy_array_work_free(s->work);
-    sy_array_plan_free(s->plan);
-}
 
 /* omega for wavenumber k in depth DEPTH */
 static double omega_of_k(double k) { return sqrt(G * k * tanh(k * DEPTH)); }

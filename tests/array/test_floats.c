@@ -14,6 +14,7 @@
 
 #include "array/array_impl.h"
 #include "swellyield/array.h"
+#include "fixture.h"
 #include "swellyield/waves.h"
 
 #include <gsl/gsl_sf_bessel.h>
@@ -26,33 +27,14 @@
 #define DEPTH 30.0
 #define NHEAD 72   /* trapezoid over a periodic integrand: exponential convergence; k D < 8 here */
 
-typedef struct {
-    sy_array_plan *plan;
-    sy_array_work *work;
-    sy_array_hydro *res;
-} setup;
 
 static int make(setup *s, const sy_array_type *types, size_t nt, const sy_array_body *b, size_t n,
                 size_t M, size_t Q, const double *beta, size_t nb, sy_error *err)
 {
     sy_array_settings set = {DEPTH, RHO, G, 1e-10, M, Q, 0.0};
-    int rc = sy_array_plan_create(&s->plan, &set, types, nt, b, n, beta, nb, err);
-    if (rc == SY_OK)
-        rc = sy_array_work_alloc(&s->work, s->plan, err);
-    if (rc == SY_OK)
-        rc = sy_array_hydro_alloc(&s->res, s->plan, err);
-    return rc;
+    return setup_open(s, &set, types, nt, b, n, beta, nb, err);
 }
 
-static void unmake(setup *s)
-{
-    sy_array_hydro_free(s->res);
-    sy_array_work_free(s->work);
-    sy_array_plan_free(s->plan);
-    s->res = NULL;
-    s->work = NULL;
-    s->plan = NULL;
-}
 
 static double maxabs(const double *a, size_t n)
 {
