@@ -44,10 +44,16 @@ typedef struct sy_wave_roots {
  * parts. Complex omega: analytic continuation from the real roots at Re(omega) along
  * the vertical path (Euler predictor + Newton corrector with step halving, never
  * jumping branch); on the real axis the continuation agrees with the real path to
- * 4 ulps. k(conj omega) = conj k(omega). Deep water (h = INFINITY): k0 = omega^2/g and
- * n_evanescent must be 0. No allocation; about 0.25 us per real root, 1.5 us per complex
- * root (bench/bench_dispersion.c). SY_EINVAL (bad argument, r or r->k NULL),
- * SY_ENOCONV (continuation lost the root; not seen in tests). */
+ * 4 ulps; k(conj omega) = conj k(omega). Tested domain: |Im omega| <= 0.8 Re omega
+ * (Q >= 0.625 for a pole), omega 0.03..20 rad/s, h 0.5..5000 m, 100 roots: no
+ * failures. Near arg omega = -+pi/4 the path passes close to branch points of the
+ * evanescent relation (|Y| ~ m pi, Y = omega^2 h/g, where two roots meet) and the root's
+ * identity becomes path-dependent: there the call may return SY_ENOCONV, or a root
+ * that carries a neighbour's label. For Im omega < 0, Im k0 < 0 (outgoing waves grow
+ * with r, as they must at a resonance pole). Deep water (h = INFINITY): k0 = omega^2/g and n_evanescent must
+ * be 0. No allocation; about 0.1-0.25 us per real root, 0.6-1.5 us per complex root
+ * (bench/bench_dispersion.c). SY_EINVAL (bad argument, r or r->k NULL),
+ * SY_ENOCONV (continuation lost the root). */
 SY_API int sy_waves_roots_fill(sy_wave_roots *r, double complex omega, double h, double g,
                                size_t n_evanescent, sy_error *err);
 

@@ -2,6 +2,7 @@
 #ifndef SY_CLI_H
 #define SY_CLI_H
 
+#include <stddef.h>
 #include "swellyield/swellyield.h"
 
 enum { SY_EXIT_OK = 0, SY_EXIT_FAIL = 1, SY_EXIT_USAGE = 2 };
@@ -12,6 +13,29 @@ typedef struct sy_cli_verb {
     int (*run)(int argc, char **argv); /* argv[0] is the verb */
 } sy_cli_verb;
 
+/* One line "swellyield: VERB: MESSAGE" on stderr; returns the exit code for status rc
+ * (2 for bad input or usage, 1 for a failed computation). */
+int sy_cli_fail(const char *verb, int rc, const sy_error *err);
+int sy_cli_usage_error(const char *verb, const char *fmt, ...) SY_PRINTF(2, 3);
+
+/* Progress bar (progress.c). */
+typedef struct sy_progress {
+    const char *label;
+    size_t total, done;
+    double t0, last;
+    int active;
+} sy_progress;
+void sy_cli_set_quiet(int quiet);
+int sy_cli_quiet(void);
+void sy_progress_start(sy_progress *p, const char *label, size_t total);
+void sy_progress_step(sy_progress *p, size_t done);
+void sy_progress_end(sy_progress *p);
+
 int sy_cmd_version(int argc, char **argv);
+int sy_cmd_check(int argc, char **argv);
+int sy_cmd_run(int argc, char **argv);
+int sy_cmd_hydro(int argc, char **argv);
+int sy_cmd_sea(int argc, char **argv);
+
 
 #endif

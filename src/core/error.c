@@ -32,16 +32,17 @@ void sy_error_prefix(sy_error *err, const char *fmt, ...)
 {
     if (err == NULL)
         return;
-    char head[SY_ERROR_MSG_MAX], old[SY_ERROR_MSG_MAX];
+    char head[SY_ERROR_MSG_MAX], joined[2 * SY_ERROR_MSG_MAX + 2];
     va_list ap;
     va_start(ap, fmt);
     vsnprintf(head, sizeof head, fmt, ap);
     va_end(ap);
-    memcpy(old, err->msg, sizeof old);
-    if (old[0] != '\0')
-        snprintf(err->msg, sizeof err->msg, "%s: %s", head, old);
+    if (err->msg[0] != '\0')
+        snprintf(joined, sizeof joined, "%s: %s", head, err->msg);
     else
-        snprintf(err->msg, sizeof err->msg, "%s", head);
+        snprintf(joined, sizeof joined, "%s", head);
+    /* Keep the head of the message when it is too long: the context is what matters. */
+    snprintf(err->msg, sizeof err->msg, "%.*s", (int)(sizeof err->msg - 1), joined);
 }
 
 void sy_error_clear(sy_error *err)

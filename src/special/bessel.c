@@ -58,6 +58,9 @@ static int check_args(syi_bessel_kind kind, int nmax, double complex z, const vo
     return SY_OK;
 }
 
+/* Orders whose scratch lives on the stack; larger nmax allocates. */
+#define STACK_ORDERS 128
+
 /* Rescale when the recurrence leaves [2^-SCALE_BITS, 2^SCALE_BITS]: far from the double
  * limits (2^+-1022) so one more step cannot overflow. */
 #define SCALE_BITS 600
@@ -124,9 +127,6 @@ static int verified_or_direct(syi_bessel_kind kind, int nmax, double complex z,
     return rc;
 }
 
-/* Orders held on the stack for H1 = 2J - H2; larger nmax allocates. */
-#define STACK_ORDERS 128
-
 /* H1 for Im z < 0, where H1 grows and upward recurrence of H1 would pick up the J part
  * with a factor ~e^{2|Im z|}: H1 = 2J - H2 (DLMF 10.4.3-4), J downward and H2 upward
  * both stable there, and no cancellation since |H2| <= |H1| for Im z < 0. */
@@ -148,14 +148,11 @@ static int hankel1_lower(int nmax, double complex z, double complex *out, sy_err
     return rc;
 }
 
-static int array(syi_bessel_kind kind, int nmax, double complex z, double complex *out,
-                 sy_error *err)
+/* Complex z by the Arb seeds and recurrences above (any z off the cut). */
+static int array_arb(syi_bessel_kind kind, int nmax, double complex z, double complex *out,
+                     sy_error *err)
 {
-    int rc = check_args(kind, nmax, z, out, err);
-    if (rc != SY_OK)
-        return rc;
-    if (is_real(z))
-        return syi_special_gsl_array(kind, nmax, creal(z), out, err);
+    int rc = SY_OK;
     if (nmax == 0)
         return syi_special_arb_value(kind, 0.0, z, &out[0], err);
     switch (kind) {
@@ -180,6 +177,42 @@ static int array(syi_bessel_kind kind, int nmax, double complex z, double comple
     return rc;
 }
 
+/* Complex z: the double-complex fast path (fast.c) where it applies — Re z >= 0, and
+ * J, I at Re z < 0 through J_n(-z) = (-1)^n J_n(z), I_n(-z) = (-1)^n I_n(z) (DLMF
+ * 10.11.1, 10.34.1; the scale e^{-|Re z|} is even) — else Arb. */
+static int array_complex(syi_bessel_kind kind, int nmax, double complex z,
+                         double complex *out, sy_error *err)
+{
+    double complex stack[SYI_FAST_SCRATCH(STACK_ORDERS)], *scratch = stack;
+    if (nmax >= STACK_ORDERS) {
+        scratch = malloc(SYI_FAST_SCRATCH(nmax) * sizeof *scratch);
+        if (scratch == NULL)
+            return sy_error_set(err, SY_ENOMEM, "%s array of %d orders",
+                                syi_special_kind_name(kind), nmax + 1);
+    }
+    int reflect = creal(z) < 0.0 && (kind == SYI_BESSEL_J || kind == SYI_BESSEL_I_SCALED);
+    int rc = syi_special_fast_array(kind, nmax, reflect ? -z : z, out, scratch);
+    if (rc == SY_OK && reflect)
+        for (int n = 1; n <= nmax; n += 2)
+            out[n] = -out[n];
+    if (scratch != stack)
+        free(scratch);
+    if (rc == SY_CONTINUE)
+        rc = array_arb(kind, nmax, z, out, err);
+    return rc;
+}
+
+static int array(syi_bessel_kind kind, int nmax, double complex z, double complex *out,
+                 sy_error *err)
+{
+    int rc = check_args(kind, nmax, z, out, err);
+    if (rc != SY_OK)
+        return rc;
+    if (is_real(z))
+        return syi_special_gsl_array(kind, nmax, creal(z), out, err);
+    return array_complex(kind, nmax, z, out, err);
+}
+
 int sy_special_besselj_array(int nmax, double complex z, double complex *out, sy_error *err)
 {
     return array(SYI_BESSEL_J, nmax, z, out, err);
@@ -202,17 +235,33 @@ int sy_special_besselk_scaled_array(int nmax, double complex z, double complex *
     return array(SYI_BESSEL_K_SCALED, nmax, z, out, err);
 }
 
-/* One integer order, any sign: C_{-n} = (-1)^n C_n for J, Y, H (DLMF 10.4.1). */
+/* One integer order, any sign: C_{-n} = (-1)^n C_n for J, Y, H (DLMF 10.4.1).
+ * Complex z: the arrays up to order |n| (fast path) for |n| < STACK_ORDERS, with
+ * Y = -i (H1 - J) (DLMF 10.4.3): error ~1e-16 max(|J|, |H1|), which is the size of
+ * |Y| except near a zero of Y (absolute error there, as for J in the arrays).
+ * Larger orders: Arb directly. */
 static double complex scalar(syi_bessel_kind kind, int n, double complex z)
 {
     if (n == INT_MIN) /* -n would overflow */
         return CMPLX(NAN, NAN);
     int an = n < 0 ? -n : n;
-    double complex v;
+    double complex v, a[STACK_ORDERS], b[STACK_ORDERS];
     if (check_args(kind, an, z, &v, NULL) != SY_OK)
         return CMPLX(NAN, NAN);
-    int rc = is_real(z) ? syi_special_gsl_value(kind, an, creal(z), &v, NULL)
-                        : syi_special_arb_value(kind, an, z, &v, NULL);
+    int rc;
+    if (is_real(z))
+        rc = syi_special_gsl_value(kind, an, creal(z), &v, NULL);
+    else if (an >= STACK_ORDERS)
+        rc = syi_special_arb_value(kind, an, z, &v, NULL);
+    else if (kind == SYI_BESSEL_Y) {
+        rc = array_complex(SYI_BESSEL_H1, an, z, a, NULL);
+        if (rc == SY_OK)
+            rc = array_complex(SYI_BESSEL_J, an, z, b, NULL);
+        v = -I * (a[an] - b[an]);
+    } else {
+        rc = array_complex(kind, an, z, a, NULL);
+        v = a[an];
+    }
     if (rc != SY_OK)
         return CMPLX(NAN, NAN);
     return (n < 0 && (an & 1)) ? -v : v;
@@ -235,8 +284,11 @@ static int order_nu(syi_bessel_kind kind, double nu, double complex z, double co
     if (!finite_arg(z))
         return sy_error_set(err, SY_EINVAL, "%s_%g: argument must be finite, got %g%+gi",
                             name, nu, creal(z), cimag(z));
-    if (!is_real(z))
+    if (!is_real(z)) {
+        if (syi_special_fast_nu(kind, nu, z, out) == SY_OK)
+            return SY_OK;
         return syi_special_arb_value(kind, nu, z, out, err);
+    }
     double x = creal(z), v;
     if (x >= 0.0) {
         int rc = syi_special_gsl_nu(kind, nu, x, &v, err);

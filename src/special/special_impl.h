@@ -41,6 +41,18 @@ int syi_special_arb_value(syi_bessel_kind kind, double nu, double complex z,
 int syi_special_arb_pair(syi_bessel_kind kind, int n, double complex z, double complex m[2],
                          long *e, sy_error *err);
 
+/* Double-complex fast path (fast.c) for arrays of orders 0..nmax at Re z >= 0 (J, H1,
+ * I scaled, K scaled): SY_OK, or SY_CONTINUE when z or nmax is outside its verified
+ * range or a value is not finite (the caller then uses Arb). scratch holds
+ * SYI_FAST_SCRATCH(nmax) values. Never sets an error. */
+#define SYI_FAST_SCRATCH(nmax) (2 * ((size_t)(nmax) + 3))
+int syi_special_fast_array(syi_bessel_kind kind, int nmax, double complex z,
+                           double complex *out, double complex *scratch);
+
+/* Fast path for J_nu (kind J) or I_nu e^{-|Re z|} (kind I scaled) of real order
+ * 0 <= nu <= 400 at Re z >= 0; SY_OK or SY_CONTINUE as above. */
+int syi_special_fast_nu(syi_bessel_kind kind, double nu, double complex z, double complex *out);
+
 /* GSL, integer orders 0..nmax at real x into out (imaginary parts 0 for J, I, K;
  * H1 = J + iY). x > 0 for Y, H1, K; any x for J, I. */
 int syi_special_gsl_array(syi_bessel_kind kind, int nmax, double x, double complex *out,

@@ -123,7 +123,7 @@ int main(void)
     const char *kn[5] = {"J", "Y", "H1", "I scaled", "K scaled"};
     for (int p = 0; p < 2; p++)
         for (int i = 0; i < 5; i++)
-            printf("# worst error/scale, %s path, %s: %.2e\n", p ? "complex (Arb)" : "real (GSL)",
+            printf("# worst error/scale, %s path, %s: %.2e\n", p ? "complex (fast/Arb)" : "real (GSL)",
                    kn[i], worst[p][i]);
     return sy_check_summary();
 }

@@ -6,7 +6,7 @@ usage: ref_roots.py omega_re omega_im h g m1 [m2 ...]
 m = 0: omega^2 = g k tanh(k h); m >= 1: omega^2 = -g k tan(k h).
 Method (mpmath, 40 digits), independent of the C code: the real root at Re(omega) by
 bisection-polished findroot in the bracket of references.md section 1, then continuation
-to complex omega along the vertical path in 400 equal steps, each a findroot started
+to complex omega along the vertical path in 100 equal steps, each a findroot started
 from the previous root (secant method)."""
 import sys
 import mpmath as mp
@@ -28,7 +28,7 @@ def main():
     wr, wi, h, g = (mp.mpf(a) for a in sys.argv[1:5])
     for m in (int(a) for a in sys.argv[5:]):
         x = real_root(m, wr * wr * h / g)
-        n = 400 if wi != 0 else 0
+        n = 100 if wi != 0 else 0
         for j in range(1, n + 1):
             w = mp.mpc(wr, wi * j / n)
             y = w * w * h / g

@@ -1,0 +1,57 @@
+/* Progress bar on stderr for loops that can take more than a second: shown only when
+ * stderr is a terminal and --quiet was not given; elapsed and remaining time. */
+#include "cli.h"
+
+#include <stdio.h>
+#include <time.h>
+#include <unistd.h>
+
+static int quiet;
+
+void sy_cli_set_quiet(int q) { quiet = q; }
+int sy_cli_quiet(void) { return quiet; }
+
+static double now(void)
+{
+    struct timespec ts;
+    clock_gettime(CLOCK_MONOTONIC, &ts);
+    return (double)ts.tv_sec + 1e-9 * (double)ts.tv_nsec;
+}
+
+void sy_progress_start(sy_progress *p, const char *label, size_t total)
+{
+    p->label = label;
+    p->total = total;
+    p->done = 0;
+    p->t0 = now();
+    p->last = 0;
+    p->active = !quiet && isatty(STDERR_FILENO) && total > 0;
+}
+
+void sy_progress_step(sy_progress *p, size_t done)
+{
+    if (!p->active)
+        return;
+    p->done = done;
+    double t = now();
+    if (t - p->last < 0.1 && done < p->total)
+        return; /* redraw at most ten times a second */
+    p->last = t;
+    double el = t - p->t0, frac = (double)done / (double)p->total;
+    double rem = frac > 0 ? el * (1 - frac) / frac : 0;
+    int width = 30, fill = (int)(frac * width + 0.5);
+    fprintf(stderr, "\r%-12s [", p->label);
+    for (int i = 0; i < width; i++)
+        fputc(i < fill ? '#' : '.', stderr);
+    fprintf(stderr, "] %3.0f%%  %zu/%zu  %.1fs elapsed, %.1fs left ", 100 * frac, done, p->total, el, rem);
+    fflush(stderr);
+}
+
+void sy_progress_end(sy_progress *p)
+{
+    if (!p->active)
+        return;
+    sy_progress_step(p, p->total);
+    fputc('\n', stderr);
+    p->active = 0;
+}
