@@ -88,6 +88,9 @@ SY_API void sy_array_plan_dof(const sy_array_plan *plan, size_t d, size_t *body,
 SY_API size_t sy_array_plan_dropped(const sy_array_plan *plan);
 /* 64-bit FNV-1a hash of geometry, settings and headings (a cache key). */
 SY_API uint64_t sy_array_plan_key(const sy_array_plan *plan);
+/* One-line truncation record for output files ("M = 8, Q = 5, tolerance 1e-06, 3 of
+ * 30 (pair, evanescent mode) couplings dropped"), written into buf[n] (truncated to fit). */
+SY_API void sy_array_plan_truncation(const sy_array_plan *plan, char *buf, size_t n);
 /* Human-readable summary (bodies, types, truncation, dropped couplings) to f. */
 SY_API void sy_array_plan_describe(const sy_array_plan *plan, FILE *f);
 
@@ -99,7 +102,10 @@ SY_API void sy_array_plan_describe(const sy_array_plan *plan, FILE *f);
  *                              NaN: use impedance (the equation of motion needs only
  *                              -omega^2 A - i omega B = -i omega Z).
  *   excitation[b * n_dof + d]  X(heading b, dof d) per unit wave amplitude, N/m, N m/m.
- * k0 the propagating wavenumber, cg the group velocity (real omega; NaN otherwise). */
+ * k0 the propagating wavenumber, cg the group velocity (real omega; NaN otherwise);
+ * convergence: the largest relative-change estimate reported by the body solves
+ * (body.h) at this frequency (the interaction truncation itself is set by the plan's
+ * tolerance and orders; check it by re-running with larger M, Q). */
 typedef struct sy_array_hydro {
     size_t n_dof, n_headings;
     double complex omega;
@@ -109,6 +115,7 @@ typedef struct sy_array_hydro {
     double *added_mass;
     double *damping;
     double complex *excitation;
+    double convergence;
 } sy_array_hydro;
 
 SY_API int sy_array_hydro_alloc(sy_array_hydro **out, const sy_array_plan *plan, sy_error *err);

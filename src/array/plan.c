@@ -282,6 +282,15 @@ uint64_t sy_array_plan_key(const sy_array_plan *p)
     return h;
 }
 
+void sy_array_plan_truncation(const sy_array_plan *p, char *buf, size_t n)
+{
+    if (buf == NULL || n == 0)
+        return;
+    size_t pairs = p->n_bodies * (p->n_bodies - 1) / 2 * (p->Q - 1);
+    snprintf(buf, n, "M = %zu, Q = %zu, tolerance %g, %zu of %zu (pair, evanescent mode) couplings dropped",
+             p->M, p->Q, p->set.tolerance, p->dropped, pairs);
+}
+
 void sy_array_plan_describe(const sy_array_plan *p, FILE *f)
 {
     const sy_array_settings *s = &p->set;

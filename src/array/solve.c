@@ -444,6 +444,10 @@ int sy_array_solve(const sy_array_plan *plan, double complex omega, sy_array_wor
     (void)N;
     res->omega = omega;
     res->k0 = w->roots.k0;
+    res->convergence = 0.0;
+    for (size_t t = 0; t < plan->n_types; t++)
+        if (w->bwaves[t]->convergence > res->convergence)
+            res->convergence = w->bwaves[t]->convergence;
     int real_axis = cimag(omega) == 0.0;
     res->cg = real_axis ? sy_waves_group_velocity(creal(omega), creal(w->roots.k0), plan->set.h) : NAN;
     for (size_t b = 0; b < plan->n_headings; b++)

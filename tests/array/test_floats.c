@@ -20,6 +20,7 @@
 #include <gsl/gsl_sf_bessel.h>
 #include <math.h>
 #include <stdlib.h>
+#include <string.h>
 
 #define PI 3.14159265358979323846
 #define RHO 1025.0
@@ -97,6 +98,11 @@ int main(void)
         if (sy_check_ok(make(&s, types, 1, &b, 1, 8, 6, heads, 4, &err), &err, "one-body plan") &&
             sy_check_ok(sy_array_solve(s.plan, omega, s.work, s.res, &err), &err, "one-body solve")) {
             const sy_body_waves *bw = s.work->bwaves[0];
+            sy_check_true(s.res->convergence == bw->convergence && bw->convergence >= 0,
+                          "N = 1: convergence estimate passed on (%g)", bw->convergence);
+            char text[160];
+            sy_array_plan_truncation(s.plan, text, sizeof text);
+            sy_check_true(strstr(text, "M = 8, Q = 6") != NULL, "truncation record: %s", text);
             const size_t nd = 5, Q = s.plan->Q, nn = s.plan->nn;
             const long Ml = (long)s.plan->M;
             double k = creal(s.res->k0);
