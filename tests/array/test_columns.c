@@ -215,5 +215,23 @@ int main(void)
             unmake(&s);
         }
     }
+    /* --- Truncation check, N = 25 line (same configuration), kd = 1.35: |Fx(mid)|/F0 =
+     * 2.2900161481 with 17, 21 or 25 modes per cylinder (M = 8, 10, 12), 2.2900161476 with
+     * 13 (M = 6), 2.2900162870 with 9 (M = 4) (references.md section 9, 11 digits listed:
+     * atol 6e-11). Reproducing the truncated values too checks that "modes" = 2M + 1. */
+    {
+        const size_t N = 25, mid = 12, Ms[3] = {4, 6, 8};
+        const double want[3] = {2.2900162870, 2.2900161476, 2.2900161481}, beta = 0.0;
+        double xy[50] = {0}, f[50];
+        for (size_t j = 0; j < N; j++)
+            xy[2 * j] = 2.0 * ((double)j - (double)mid);
+        for (size_t c = 0; c < 3; c++) {
+            setup s = {0};
+            if (sy_check_ok(make(&s, xy, N, 0.5, Ms[c], &beta, 1, &err), &err, "N = 25 plan") &&
+                sy_check_ok(solve_norm(&s, omega_of_k(1.35), 0.5, 0, f, &err), &err, "N = 25 solve"))
+                sy_check_close(f[2 * mid], want[c], 0, 6e-11, "N = 25, kd = 1.35, M = %zu: |Fx(mid)|/F0", Ms[c]);
+            unmake(&s);
+        }
+    }
     return sy_check_summary();
 }
