@@ -7,6 +7,7 @@
 #include "swellyield/climate.h"
 #include "swellyield/special.h"
 #include "swellyield/body.h"
+#include "swellyield/array.h"
 #include "swellyield/model.h"
 #include "swellyield/hydrodb.h"
 #include "swellyield/dynamics.h"
