@@ -7,9 +7,11 @@
 #include "swellyield/climate.h"
 #include "swellyield/special.h"
 #include "swellyield/body.h"
+#include "swellyield/array.h"
 #include "swellyield/model.h"
 #include "swellyield/hydrodb.h"
 #include "swellyield/dynamics.h"
 #include "swellyield/yield.h"
 #include "swellyield/outputs.h"
+#include "swellyield/hydro.h"
 #endif

@@ -37,7 +37,5 @@ int sy_cmd_run(int argc, char **argv);
 int sy_cmd_hydro(int argc, char **argv);
 int sy_cmd_sea(int argc, char **argv);
 
-/* A climate table from .nc (swellyield layout) or .csv (long form). */
-int sy_cli_read_climate(const char *path, sy_climate_table **out, sy_error *err);
 
 #endif

@@ -133,7 +133,7 @@ static int summary(const opts *o, const char *file)
 {
     sy_error err = SY_ERROR_INIT;
     sy_climate_table *t = NULL;
-    int rc = sy_cli_read_climate(file, &t, &err);
+    int rc = sy_climate_table_load(&t, file, &err);
     if (rc != SY_OK)
         return sy_cli_fail("sea", rc, &err);
     const sy_climate_bins *b = sy_climate_table_bins(t);

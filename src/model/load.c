@@ -83,6 +83,22 @@ static char *read_line(char *str, int num, void *stream)
         r->rc = sy_error_set(r->err, SY_EINPUT, "%s:%zu: not valid UTF-8 text", r->path, r->line);
         return NULL;
     }
+    /* Section headers are checked here too: inih reports only keys, so an unknown
+     * section without keys would otherwise pass silently. */
+    const char *p = str + strspn(str, " \t");
+    if (*p == '[') {
+        size_t len = strcspn(p + 1, "]"), ns = sizeof sections / sizeof sections[0], s;
+        for (s = 0; s < ns && !(strlen(sections[s]) == len && strncmp(p + 1, sections[s], len) == 0); s++)
+            ;
+        if (s == ns) {
+            r->rc = sy_error_set(r->err, SY_EINPUT,
+                                 "%s:%zu: unknown section '[%.*s]' (expected site, device, pto, layout, sea, solve, resonance)",
+                                 r->path, r->line, (int)len, p + 1);
+            return NULL;
+        }
+        if (r->section_line[s] == 0)
+            r->section_line[s] = r->line;
+    }
     return str;
 }
 
