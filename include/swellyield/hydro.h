@@ -2,14 +2,19 @@
  * over the run's frequencies and headings, plus one isolated-device database per
  * distinct device geometry (for q-factors), with a resumable on-disk cache.
  *
- * Truncation (chosen here from the model's tolerance, recorded in the database):
- *   angular orders M = ceil(k_max a_max + 3 (k_max a_max)^(1/3)) + ceil(-log10(tol) / 2),
- *     at least 4: the partial waves of a cylinder decay quickly beyond n ~ k a (the
- *     Wiscombe-type rule used for cylinder series, common practice), and the extra
- *     orders cover the re-expansion about neighbours;
+ * Truncation ([solve] orders / depth_modes, or chosen here from the model's tolerance;
+ * recorded in the database):
+ *   angular orders M = max(ceil(k a + 2 (k a)^(1/3)) + 1, ceil(ln tol / ln(a / (L - a)))),
+ *     at least SY_HYDRO_MIN_ORDER, with k at the highest frequency, a the largest radius
+ *     and L the smallest centre distance: a cylinder's own partial waves decay beyond
+ *     n ~ k a (common practice for cylinder series) and the re-expansion about the
+ *     nearest neighbour converges like (a / (L - a))^M (measured in
+ *     tests/array/test_floats.c);
  *   depth modes Q = 1 + ceil(h ln(1/tol) / (pi gap_min)), at most SY_HYDRO_MAX_DEPTH,
  *     so that the weakest kept evanescent coupling e^{-k_Q gap} (k_q ~ q pi / h) is
- *     below the tolerance at the smallest gap between bounding circles.
+ *     below the tolerance at the smallest gap between bounding circles. The float's
+ *     sharp corner makes the convergence in Q algebraic at small gaps; the cap keeps
+ *     the cost bounded and docs/hydro-convergence.md records what it costs in accuracy.
  *
  * Cache: with a cache folder, frequencies are solved in blocks of SY_HYDRO_BLOCK; each
  * block is stored as "<key>.nc" (a small database file; key = hash of the array plan,
@@ -29,7 +34,8 @@ extern "C" {
 #endif
 
 #define SY_HYDRO_BLOCK 16
-#define SY_HYDRO_MAX_DEPTH 24
+#define SY_HYDRO_MAX_DEPTH 8
+#define SY_HYDRO_MIN_ORDER 4
 
 typedef void (*sy_hydro_progress)(void *ctx, size_t done, size_t total);
 

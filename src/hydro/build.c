@@ -12,13 +12,18 @@
 #include <string.h>
 #include <sys/stat.h>
 
-static size_t angular_order(const sy_model *m, double a_max)
+/* Angular orders: the larger of what one body's own partial waves need at the highest
+ * frequency (n up to about k a plus a few: common practice for cylinder series) and what
+ * the re-expansion about the nearest neighbour needs (the Graf series converges like
+ * (a / (L - a))^M: measured in tests/array/test_floats.c). */
+static size_t angular_order(const sy_model *m, double a_max, double l_min)
 {
     double k = 0;
     sy_waves_wavenumber(m->omega[m->n_omega - 1], m->depth, m->g, &k, NULL);
-    double ka = k * a_max;
-    double n = ceil(ka + 3 * cbrt(ka)) + ceil(-log10(m->tolerance) / 2);
-    return n < 4 ? 4 : (size_t)n;
+    double ka = k * a_max, body = ceil(ka + 2 * cbrt(ka)) + 1, n = body;
+    if (isfinite(l_min) && l_min > 2 * a_max)
+        n = fmax(body, ceil(log(m->tolerance) / log(a_max / (l_min - a_max))));
+    return n < SY_HYDRO_MIN_ORDER ? SY_HYDRO_MIN_ORDER : (size_t)n;
 }
 
 static size_t depth_modes(const sy_model *m, double gap)
@@ -63,7 +68,7 @@ static int run_job(const job *j, sy_hydro_db **out, size_t *computed, size_t *ca
     sy_array_hydro **res = NULL;
     int rc = types && bodies ? SY_OK : sy_error_set(err, SY_ENOMEM, "array of %zu bodies", j->n);
     size_t nt = 0;
-    double a_max = 0, gap = INFINITY;
+    double a_max = 0, gap = INFINITY, l_min = INFINITY;
     for (size_t b = 0; rc == SY_OK && b < j->n; b++) {
         const sy_model_device *d = &j->dev[b];
         size_t t;
@@ -79,10 +84,15 @@ static int run_job(const job *j, sy_hydro_db **out, size_t *computed, size_t *ca
         }
         bodies[b].x = d->x, bodies[b].y = d->y, bodies[b].type = t;
         a_max = fmax(a_max, d->radius);
-        for (size_t c = 0; c < b; c++)
-            gap = fmin(gap, hypot(d->x - j->dev[c].x, d->y - j->dev[c].y) - d->radius - j->dev[c].radius);
+        for (size_t c = 0; c < b; c++) {
+            double l = hypot(d->x - j->dev[c].x, d->y - j->dev[c].y);
+            l_min = fmin(l_min, l);
+            gap = fmin(gap, l - d->radius - j->dev[c].radius);
+        }
     }
-    sy_array_settings s = {m->depth, m->rho, m->g, m->tolerance, angular_order(m, a_max), depth_modes(m, gap), 1e-3};
+    sy_array_settings s = {m->depth, m->rho, m->g, m->tolerance,
+                           m->orders ? m->orders : angular_order(m, a_max, l_min),
+                           m->depth_modes ? m->depth_modes : depth_modes(m, gap), 1e-3};
     if (rc == SY_OK)
         rc = sy_array_plan_create(&plan, &s, types, nt, bodies, j->n, m->headings, m->n_headings, err);
     size_t nd = rc == SY_OK ? sy_array_plan_n_dof(plan) : 0;
