@@ -1,12 +1,13 @@
 /* Dispatch of the Bessel interface (include/swellyield/special.h): argument checks,
- * real arguments to GSL (gsl.c), complex arguments to Arb (arb.c), and for arrays of
- * orders the three-term recurrence C_{n-1} + C_{n+1} = (2n/z) C_n (DLMF 10.6.1; for I
- * and K the signs of 10.29.1) run in double from two Arb values, in the direction in
- * which the wanted solution dominates: J and I downward from orders nmax, nmax - 1
- * (they are the minimal solutions as n grows), H^(1) and K upward from orders 0, 1
- * (dominant as n grows). The recurrence carries a binary exponent so that the seeds
- * may lie outside the double range (tiny or huge |z|/n); values are scaled back once
- * at the end, underflowing to 0 where the true value does. */
+ * real arguments to GSL (gsl.c), complex arguments to the double-complex fast path
+ * (fast.c) where it applies and otherwise to Arb (arb.c). For Arb, arrays of orders
+ * run the three-term recurrence C_{n-1} + C_{n+1} = (2n/z) C_n (DLMF 10.6.1; for I and
+ * K the signs of 10.29.1) in double from two Arb values, in the direction in which the
+ * wanted solution dominates: J and I downward from orders nmax, nmax - 1 (minimal
+ * solutions as n grows), H^(1) and K upward from orders 0, 1. The recurrence carries a
+ * binary exponent so that the seeds may lie outside the double range (tiny or huge
+ * |z|/n); values are scaled back once at the end, underflowing to 0 where the true
+ * value does. */
 #include "special_impl.h"
 
 #include <limits.h>
@@ -290,7 +291,11 @@ static int order_nu(syi_bessel_kind kind, double nu, double complex z, double co
         return syi_special_arb_value(kind, nu, z, out, err);
     }
     double x = creal(z), v;
-    if (x >= 0.0) {
+    if (x == 0.0) { /* J_nu(0), I_nu(0) = 1 for nu = 0, else 0 (DLMF 10.2.2, 10.25.2) */
+        *out = nu == 0.0 ? 1.0 : 0.0;
+        return SY_OK;
+    }
+    if (x > 0.0) {
         int rc = syi_special_gsl_nu(kind, nu, x, &v, err);
         if (rc == SY_OK)
             *out = CMPLX(v, 0.0);

@@ -138,6 +138,11 @@ static void at_zero(void)
     sy_check_ok(sy_special_deriv_array(SY_SPECIAL_MODIFIED_I, 3, 0.0, is, d, &err), &err,
                 "I' at 0");
     sy_check_cclose(d[1], 0.5, 0.0, 0.0, "I_1'(0) = 1/2 (DLMF 10.25.2 series)");
+    double complex v = NAN;
+    sy_check_ok(sy_special_besselj_nu(1.0 / 6.0, 0.0, &v, &err), &err, "J_{1/6}(0)");
+    sy_check_cclose(v, 0.0, 0.0, 0.0, "J_{1/6}(0) = 0 (DLMF 10.2.2)");
+    sy_check_ok(sy_special_besseli_nu_scaled(0.0, 0.0, &v, &err), &err, "I_0(0)");
+    sy_check_cclose(v, 1.0, 0.0, 0.0, "I_0(0) = 1 (DLMF 10.25.2)");
     /* underflow: J_30(1e-12) ~ (5e-13)^30 / 30! ~ 1e-402, below the double range */
     double complex big[31];
     sy_check_ok(sy_special_besselj_array(30, 1e-12 + 1e-12 * I, big, &err), &err,
