@@ -142,6 +142,8 @@ static int hankel1_lower(int nmax, double complex z, double complex *out, sy_err
     int rc = recur(SYI_BESSEL_J, nmax, z, 1, -1.0, out, err);
     if (rc == SY_OK)
         rc = recur(SYI_BESSEL_H2, nmax, z, 0, -1.0, h2, err);
+    if (rc != SY_OK)
+        sy_error_prefix(err, "H1 = 2J - H2");
     for (int n = 0; rc == SY_OK && n <= nmax; n++)
         out[n] = 2.0 * out[n] - h2[n];
     if (h2 != stack)
@@ -149,13 +151,23 @@ static int hankel1_lower(int nmax, double complex z, double complex *out, sy_err
     return rc;
 }
 
+/* Below this |z| consecutive orders differ by factors ~2n/|z| > 1e6, so a few steps
+ * of the downward recurrence (J, I) leave the double range; each order is then taken
+ * from Arb (the series converge in a few terms there). Upward (H, K) only grows to
+ * the true value, whose overflow is reported. */
+#define DIRECT_ZMAX 1e-6
+
 /* Complex z by the Arb seeds and recurrences above (any z off the cut). */
 static int array_arb(syi_bessel_kind kind, int nmax, double complex z, double complex *out,
                      sy_error *err)
 {
     int rc = SY_OK;
-    if (nmax == 0)
-        return syi_special_arb_value(kind, 0.0, z, &out[0], err);
+    int down = kind == SYI_BESSEL_J || kind == SYI_BESSEL_I_SCALED;
+    if (nmax == 0 || (down && cabs(z) < DIRECT_ZMAX)) {
+        for (int n = 0; rc == SY_OK && n <= nmax; n++)
+            rc = syi_special_arb_value(kind, n, z, &out[n], err);
+        return rc;
+    }
     switch (kind) {
     case SYI_BESSEL_J:
         return recur(kind, nmax, z, 1, -1.0, out, err);

@@ -30,6 +30,7 @@ COMPLEX_Z = [
     0.4 + 3.1j, 0.05 + 7.3j, 0.02 - 6.1j, 3.7j,         # near the imaginary axis
     47.5 - 3.2j, 120.3 + 0.7j, 980.0 - 12.0j,           # large
     3.0 + 25.0j,                                        # H1 exponentially small
+    10.0 - 400.0j, 1e-7 + 1e-7j,                         # beyond the fast path (Arb)
     -1.3 + 0.6j, -7.2 - 2.5j, -0.3 - 0.05j, -4.1 + 1e-3j,  # Re z < 0 (principal branch)
 ]
 REAL_Z = [0.37, 2.4048255576957728, 13.7, 47.5, 980.0]

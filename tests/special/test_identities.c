@@ -149,6 +149,16 @@ static void at_zero(void)
                 "J array 0..30 at 1e-12(1+i) (deep underflow at the top)");
     sy_check_true(big[30] == 0.0 && cabs(big[0] - 1.0) < 1e-15,
                   "J_30 underflows to 0, J_0 ~ 1 (got %g, %g)", cabs(big[30]), cabs(big[0]));
+    /* I_n(iy) = i^n J_n(y) (DLMF 10.27.6); at y = 1e-300: I_0 = 1, I_1 = i y/2, I_2 = 0 */
+    sy_check_ok(sy_special_besseli_scaled_array(20, 1e-300 * I, big, &err), &err,
+                "I array 0..20 at 1e-300i");
+    sy_check_cclose(big[0], 1.0, 1e-15, 0.0, "I_0(1e-300i) = 1");
+    sy_check_cclose(big[1], 0.5e-300 * I, 1e-15, 0.0, "I_1(1e-300i) = 5e-301 i");
+    sy_check_true(big[2] == 0.0, "I_2(1e-300i) underflows to 0");
+    /* H1 ~ e^{iz}: at 10 + 800i about e^{-800}, below the double range */
+    sy_check_ok(sy_special_hankel1_array(20, 10.0 + 800.0 * I, big, &err), &err,
+                "H1 array at 10 + 800i (deep underflow)");
+    sy_check_true(big[0] == 0.0 && big[20] == 0.0, "H1_0, H1_20 at 10 + 800i underflow to 0");
 }
 
 static void bad_input(void)
