@@ -1,7 +1,9 @@
 /* Special functions behind one small interface (conventions.md): Bessel functions of
  * integer order (and of real fractional order for the Galerkin projections) at real or
  * complex argument. Every other module calls these, never GSL Bessel or Arb directly.
- *  - Real argument (cimag(z) == 0): GSL's real routines (~0.2-5 us per call or array).
+ *  - Real argument (cimag(z) == 0): GSL's real routines (~0.2-5 us per call or array),
+ *    except where GSL 2.7 was measured wrong: J_n, I_n at |x| <= 1e-2 (series here) and
+ *    J_nu (x <= 30), I_nu (x <= 2e3) of fractional order (the fast path below).
  *  - Complex argument, Re z >= 0, 1e-6 <= |z| <= 2e3, |Im z| <= 300, orders <= 400:
  *    double-complex algorithms (K_0, K_1 by series or Temme's CF2, Hankel from K, J and I
  *    by CF1 + Miller + Wronskian; ~1-15 us per array of 21 orders), checked against Arb.
@@ -17,8 +19,10 @@
  * (cimag(z) == 0 and creal(z) < 0) (the side of the cut would depend on the sign of a
  * zero imaginary part, so it is refused rather than guessed); SY_EINVAL there.
  * (J_nu, I_nu at real x = 0 are fine: 1 for nu = 0, else 0.)
- * Accuracy (measured, tests/special): error <= 1e-13 of the scale, typically 1e-15 to
- * 3e-14, growing slowly with |z| (6e-14 at |z| = 1.5e3). The scale is |value| for H^(1),
+ * Accuracy (measured against mpmath and Arb, tests/special): error / scale typically
+ * 1e-15 to 3e-14 for |z| <= 100; J and H near the real axis drift like ~1e-16 |z|
+ * (CF1 runs ~|z| steps), 1e-13 at |z| = 1e3, 2e-13 at 2e3; I, K stay <= 1e-14. GSL on
+ * the real axis: <= 1e-13 (3e-13 for I_nu at x = 2.5e3). The scale is |value| for H^(1),
  * Y, K; for J and I (minimal solutions) in the oscillatory range n < |z| it is the larger
  * of |value| and its partner |Y_n| (|K_n| scaled alike): near a zero of J_n the error
  * is absolute at that size, as with any recurrence (and with GSL).

@@ -34,9 +34,10 @@ COMPLEX_Z = [
     -1.3 + 0.6j, -7.2 - 2.5j, -0.3 - 0.05j, -4.1 + 1e-3j,  # Re z < 0 (principal branch)
 ]
 REAL_Z = [0.37, 2.4048255576957728, 13.7, 47.5, 980.0]
-REAL_Z_J_I = [0.0, -3.3, -0.61]                          # J, I only (entire)
+REAL_Z_J_I = [0.0, -3.3, -0.61, 1e-9]                    # J, I only (entire); 1e-9: J_30 subnormal
 # Fractional orders as the doubles the C code passes (1/6 rounded to double, etc.).
-NU = [mp.mpf(1.0 / 6), mp.mpf(13.0 / 6), mp.mpf(25.0 / 6), mp.mpf(0.5), mp.mpf(7), mp.mpf(30.25)]
+NU = [mp.mpf(1.0 / 6), mp.mpf(13.0 / 6), mp.mpf(25.0 / 6), mp.mpf(0.5), mp.mpf(7), mp.mpf(30.25),
+      mp.mpf(15.0294)]  # GSL 2.7 Jnu is off by 7e-9 there
 
 
 def value(kind, n, z):
@@ -96,7 +97,8 @@ for z in [1.37 - 0.42j, -7.2 - 2.5j, 13.7, 0.37]:
     for kind in ('J', 'Y', 'H1'):
         for n in (-7, -2, 0, 1, 5, 23):
             emit('S', kind, n, z)
-for z in [0.37 + 0.11j, 12.7 - 1.9j, 980.0 - 12.0j, -1.3 + 0.6j, 0.4 + 3.1j, 0.37, 13.7, 980.0]:
+for z in [0.37 + 0.11j, 12.7 - 1.9j, 980.0 - 12.0j, -1.3 + 0.6j, 0.4 + 3.1j, 0.37, 13.7, 980.0,
+          1e-7 + 2e-7j, 1e-7, 2500.0]:
     for nu in NU:
         for kind in ('J', 'I'):
             emit('N', kind, nu, z)
