@@ -3,9 +3,14 @@
 #define SWELLYIELD_H
 #include "swellyield/core.h"
 #include "swellyield/waves.h"
+#include "swellyield/sea.h"
+#include "swellyield/climate.h"
 #include "swellyield/special.h"
 #include "swellyield/body.h"
+#include "swellyield/array.h"
 #include "swellyield/model.h"
 #include "swellyield/hydrodb.h"
 #include "swellyield/dynamics.h"
+#include "swellyield/yield.h"
+#include "swellyield/outputs.h"
 #endif

@@ -33,5 +33,9 @@ void sy_progress_end(sy_progress *p);
 
 int sy_cmd_version(int argc, char **argv);
 int sy_cmd_check(int argc, char **argv);
+int sy_cmd_run(int argc, char **argv);
+int sy_cmd_hydro(int argc, char **argv);
+int sy_cmd_sea(int argc, char **argv);
+
 
 #endif

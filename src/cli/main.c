@@ -6,6 +6,7 @@
 #include <string.h>
 
 static const sy_cli_verb verbs[] = {
+    {"sea", "wave climates and spectra: summary, CSV import, spectrum", sy_cmd_sea},
     {"check", "validate a project's inputs and say what a run would do", sy_cmd_check},
     {"version", "print the version and dependency versions", sy_cmd_version},
 };

@@ -1,5 +1,6 @@
 /* Hydrodynamic database storage and its NetCDF-4 file (layout in hydrodb.h). */
 #include "core/core_impl.h"
+#include "io_impl.h"
 #include "swellyield/hydrodb.h"
 
 #include <math.h>
@@ -60,32 +61,6 @@ void sy_hydro_db_free(sy_hydro_db *db)
     free(db);
 }
 
-/* NetCDF calls: on failure record path, what and nc_strerror, and jump to the clean-up. */
-#define NC(call, what)                                                                       \
-    do {                                                                                     \
-        int nc_rc_ = (call);                                                                 \
-        if (nc_rc_ != NC_NOERR) {                                                            \
-            rc = sy_error_set(err, SY_EIO, "%s: %s: %s", path, (what), nc_strerror(nc_rc_)); \
-            goto fail;                                                                       \
-        }                                                                                    \
-    } while (0)
-
-static int put_text(int nc, int var, const char *name, const char *text)
-{
-    return nc_put_att_text(nc, var, name, strlen(text), text);
-}
-
-static int def_var(int nc, const char *name, int ndims, const int *dims, const char *units,
-                   const char *long_name, int *var)
-{
-    int s = nc_def_var(nc, name, NC_DOUBLE, ndims, dims, var);
-    if (s == NC_NOERR && units != NULL)
-        s = put_text(nc, *var, "units", units);
-    if (s == NC_NOERR)
-        s = put_text(nc, *var, "long_name", long_name);
-    return s;
-}
-
 int sy_hydro_db_write(const sy_hydro_db *db, const char *path, sy_error *err)
 {
     char tmp[SY_ERROR_MSG_MAX];
@@ -101,73 +76,73 @@ int sy_hydro_db_write(const sy_hydro_db *db, const char *path, sy_error *err)
         free(deg);
         return sy_error_set(err, SY_ENOMEM, "%s: write buffer", path);
     }
-    NC(nc_create(tmp, NC_NETCDF4 | NC_CLOBBER, &nc), "create");
+    SYI_NC(nc_create(tmp, NC_NETCDF4 | NC_CLOBBER, &nc), "create");
     int d_om, d_hd, d_dof, d_dof2, d_body, d_name;
-    NC(nc_def_dim(nc, "omega", no, &d_om), "dimension omega");
-    NC(nc_def_dim(nc, "heading", nh, &d_hd), "dimension heading");
-    NC(nc_def_dim(nc, "dof", nd, &d_dof), "dimension dof");
-    NC(nc_def_dim(nc, "dof2", nd, &d_dof2), "dimension dof2");
-    NC(nc_def_dim(nc, "body", nb, &d_body), "dimension body");
-    NC(nc_def_dim(nc, "name_len", SY_HYDRODB_NAME_LEN, &d_name), "dimension name_len");
+    SYI_NC(nc_def_dim(nc, "omega", no, &d_om), "dimension omega");
+    SYI_NC(nc_def_dim(nc, "heading", nh, &d_hd), "dimension heading");
+    SYI_NC(nc_def_dim(nc, "dof", nd, &d_dof), "dimension dof");
+    SYI_NC(nc_def_dim(nc, "dof2", nd, &d_dof2), "dimension dof2");
+    SYI_NC(nc_def_dim(nc, "body", nb, &d_body), "dimension body");
+    SYI_NC(nc_def_dim(nc, "name_len", SY_HYDRODB_NAME_LEN, &d_name), "dimension name_len");
     int v_om, v_hd, v_am, v_bd, v_xr, v_xi, v_cv, v_db, v_dm, v_bx, v_by, v_br, v_bdr, v_bn;
     int dims3[3];
-    NC(def_var(nc, "omega", 1, &d_om, "rad s-1", "wave angular frequency", &v_om), "omega");
-    NC(put_text(nc, v_om, "standard_name", "angular_frequency"), "omega");
-    NC(def_var(nc, "heading", 1, &d_hd, "degree", "wave heading: direction of travel, counter-clockwise from the array +x axis", &v_hd), "heading");
+    SYI_NC(syi_nc_def_double(nc, "omega", 1, &d_om, "rad s-1", "wave angular frequency", NULL, &v_om), "omega");
+    SYI_NC(syi_nc_put_text(nc, v_om, "standard_name", "angular_frequency"), "omega");
+    SYI_NC(syi_nc_def_double(nc, "heading", 1, &d_hd, "degree", "wave heading: direction of travel, counter-clockwise from the array +x axis", NULL, &v_hd), "heading");
     dims3[0] = d_om, dims3[1] = d_dof, dims3[2] = d_dof2;
-    NC(def_var(nc, "added_mass", 3, dims3, NULL, "added mass (kg for translations, kg m coupled, kg m2 for rotations)", &v_am), "added_mass");
-    NC(def_var(nc, "radiation_damping", 3, dims3, NULL, "radiation damping (kg s-1 for translations, kg m s-1 coupled, kg m2 s-1 for rotations)", &v_bd), "radiation_damping");
+    SYI_NC(syi_nc_def_double(nc, "added_mass", 3, dims3, NULL, "added mass (kg for translations, kg m coupled, kg m2 for rotations)", NULL, &v_am), "added_mass");
+    SYI_NC(syi_nc_def_double(nc, "radiation_damping", 3, dims3, NULL, "radiation damping (kg s-1 for translations, kg m s-1 coupled, kg m2 s-1 for rotations)", NULL, &v_bd), "radiation_damping");
     dims3[0] = d_om, dims3[1] = d_hd, dims3[2] = d_dof;
-    NC(def_var(nc, "excitation_re", 3, dims3, NULL, "real part of the excitation force (N m-1) or moment (N) per unit wave amplitude", &v_xr), "excitation_re");
-    NC(def_var(nc, "excitation_im", 3, dims3, NULL, "imaginary part of the excitation force (N m-1) or moment (N) per unit wave amplitude", &v_xi), "excitation_im");
-    NC(def_var(nc, "convergence", 1, &d_om, "1", "estimated relative truncation error", &v_cv), "convergence");
-    NC(nc_def_var(nc, "dof_body", NC_INT, 1, &d_dof, &v_db), "dof_body");
-    NC(put_text(nc, v_db, "long_name", "body index of each degree of freedom (0-based)"), "dof_body");
-    NC(nc_def_var(nc, "dof_mode", NC_INT, 1, &d_dof, &v_dm), "dof_mode");
-    NC(put_text(nc, v_dm, "long_name", "rigid-body mode: 1 surge, 2 sway, 3 heave, 4 roll, 5 pitch"), "dof_mode");
-    NC(def_var(nc, "body_x", 1, &d_body, "m", "body axis x in the array frame", &v_bx), "body_x");
-    NC(def_var(nc, "body_y", 1, &d_body, "m", "body axis y in the array frame", &v_by), "body_y");
-    NC(def_var(nc, "body_radius", 1, &d_body, "m", "body radius", &v_br), "body_radius");
-    NC(def_var(nc, "body_draft", 1, &d_body, "m", "body draft (equal to depth for a bottom-standing column)", &v_bdr), "body_draft");
+    SYI_NC(syi_nc_def_double(nc, "excitation_re", 3, dims3, NULL, "real part of the excitation force (N m-1) or moment (N) per unit wave amplitude", NULL, &v_xr), "excitation_re");
+    SYI_NC(syi_nc_def_double(nc, "excitation_im", 3, dims3, NULL, "imaginary part of the excitation force (N m-1) or moment (N) per unit wave amplitude", NULL, &v_xi), "excitation_im");
+    SYI_NC(syi_nc_def_double(nc, "convergence", 1, &d_om, "1", "estimated relative truncation error", NULL, &v_cv), "convergence");
+    SYI_NC(nc_def_var(nc, "dof_body", NC_INT, 1, &d_dof, &v_db), "dof_body");
+    SYI_NC(syi_nc_put_text(nc, v_db, "long_name", "body index of each degree of freedom (0-based)"), "dof_body");
+    SYI_NC(nc_def_var(nc, "dof_mode", NC_INT, 1, &d_dof, &v_dm), "dof_mode");
+    SYI_NC(syi_nc_put_text(nc, v_dm, "long_name", "rigid-body mode: 1 surge, 2 sway, 3 heave, 4 roll, 5 pitch"), "dof_mode");
+    SYI_NC(syi_nc_def_double(nc, "body_x", 1, &d_body, "m", "body axis x in the array frame", NULL, &v_bx), "body_x");
+    SYI_NC(syi_nc_def_double(nc, "body_y", 1, &d_body, "m", "body axis y in the array frame", NULL, &v_by), "body_y");
+    SYI_NC(syi_nc_def_double(nc, "body_radius", 1, &d_body, "m", "body radius", NULL, &v_br), "body_radius");
+    SYI_NC(syi_nc_def_double(nc, "body_draft", 1, &d_body, "m", "body draft (equal to depth for a bottom-standing column)", NULL, &v_bdr), "body_draft");
     int dname[2] = {d_body, d_name};
-    NC(nc_def_var(nc, "body_name", NC_CHAR, 2, dname, &v_bn), "body_name");
-    NC(put_text(nc, v_bn, "long_name", "device name from the layout"), "body_name");
-    NC(put_text(nc, NC_GLOBAL, "Conventions", "CF-1.10"), "attributes");
-    NC(put_text(nc, NC_GLOBAL, "title", "swellyield hydrodynamic database (linear potential flow, array of cylinders)"), "attributes");
-    NC(put_text(nc, NC_GLOBAL, "comment", "Time convention Re{X exp(-i omega t)}; z up; dof order body-major. Linear potential-flow estimate."), "attributes");
+    SYI_NC(nc_def_var(nc, "body_name", NC_CHAR, 2, dname, &v_bn), "body_name");
+    SYI_NC(syi_nc_put_text(nc, v_bn, "long_name", "device name from the layout"), "body_name");
+    SYI_NC(syi_nc_put_text(nc, NC_GLOBAL, "Conventions", "CF-1.10"), "attributes");
+    SYI_NC(syi_nc_put_text(nc, NC_GLOBAL, "title", "swellyield hydrodynamic database (linear potential flow, array of cylinders)"), "attributes");
+    SYI_NC(syi_nc_put_text(nc, NC_GLOBAL, "comment", "Time convention Re{X exp(-i omega t)}; z up; dof order body-major. Linear potential-flow estimate."), "attributes");
     char sw[300];
     snprintf(sw, sizeof sw, "swellyield %s (%s)", sy_version(), sy_dependency_versions());
-    NC(put_text(nc, NC_GLOBAL, "software", sw), "attributes");
-    NC(nc_put_att_double(nc, NC_GLOBAL, "depth", NC_DOUBLE, 1, &db->depth), "attributes");
-    NC(nc_put_att_double(nc, NC_GLOBAL, "density", NC_DOUBLE, 1, &db->rho), "attributes");
-    NC(nc_put_att_double(nc, NC_GLOBAL, "gravity", NC_DOUBLE, 1, &db->g), "attributes");
-    NC(nc_put_att_double(nc, NC_GLOBAL, "tolerance", NC_DOUBLE, 1, &db->tolerance), "attributes");
-    NC(put_text(nc, NC_GLOBAL, "truncation", db->truncation), "attributes");
-    NC(put_text(nc, NC_GLOBAL, "cache_key", db->cache_key), "attributes");
-    NC(nc_enddef(nc), "enddef");
-    NC(nc_put_var_double(nc, v_om, db->omega), "omega");
+    SYI_NC(syi_nc_put_text(nc, NC_GLOBAL, "software", sw), "attributes");
+    SYI_NC(nc_put_att_double(nc, NC_GLOBAL, "depth", NC_DOUBLE, 1, &db->depth), "attributes");
+    SYI_NC(nc_put_att_double(nc, NC_GLOBAL, "density", NC_DOUBLE, 1, &db->rho), "attributes");
+    SYI_NC(nc_put_att_double(nc, NC_GLOBAL, "gravity", NC_DOUBLE, 1, &db->g), "attributes");
+    SYI_NC(nc_put_att_double(nc, NC_GLOBAL, "tolerance", NC_DOUBLE, 1, &db->tolerance), "attributes");
+    SYI_NC(syi_nc_put_text(nc, NC_GLOBAL, "truncation", db->truncation), "attributes");
+    SYI_NC(syi_nc_put_text(nc, NC_GLOBAL, "cache_key", db->cache_key), "attributes");
+    SYI_NC(nc_enddef(nc), "enddef");
+    SYI_NC(nc_put_var_double(nc, v_om, db->omega), "omega");
     for (size_t i = 0; i < nh; i++)
         deg[i] = db->headings[i] * 180.0 / M_PI;
-    NC(nc_put_var_double(nc, v_hd, deg), "heading");
-    NC(nc_put_var_double(nc, v_am, db->added_mass), "added_mass");
-    NC(nc_put_var_double(nc, v_bd, db->damping), "radiation_damping");
+    SYI_NC(nc_put_var_double(nc, v_hd, deg), "heading");
+    SYI_NC(nc_put_var_double(nc, v_am, db->added_mass), "added_mass");
+    SYI_NC(nc_put_var_double(nc, v_bd, db->damping), "radiation_damping");
     for (size_t i = 0; i < no * nh * nd; i++)
         buf[i] = creal(db->excitation[i]);
-    NC(nc_put_var_double(nc, v_xr, buf), "excitation_re");
+    SYI_NC(nc_put_var_double(nc, v_xr, buf), "excitation_re");
     for (size_t i = 0; i < no * nh * nd; i++)
         buf[i] = cimag(db->excitation[i]);
-    NC(nc_put_var_double(nc, v_xi, buf), "excitation_im");
-    NC(nc_put_var_double(nc, v_cv, db->convergence), "convergence");
-    NC(nc_put_var_int(nc, v_db, db->dof_body), "dof_body");
-    NC(nc_put_var_int(nc, v_dm, db->dof_mode), "dof_mode");
-    NC(nc_put_var_double(nc, v_bx, db->body_x), "body_x");
-    NC(nc_put_var_double(nc, v_by, db->body_y), "body_y");
-    NC(nc_put_var_double(nc, v_br, db->body_radius), "body_radius");
-    NC(nc_put_var_double(nc, v_bdr, db->body_draft), "body_draft");
-    NC(nc_put_var_text(nc, v_bn, &db->body_name[0][0]), "body_name");
+    SYI_NC(nc_put_var_double(nc, v_xi, buf), "excitation_im");
+    SYI_NC(nc_put_var_double(nc, v_cv, db->convergence), "convergence");
+    SYI_NC(nc_put_var_int(nc, v_db, db->dof_body), "dof_body");
+    SYI_NC(nc_put_var_int(nc, v_dm, db->dof_mode), "dof_mode");
+    SYI_NC(nc_put_var_double(nc, v_bx, db->body_x), "body_x");
+    SYI_NC(nc_put_var_double(nc, v_by, db->body_y), "body_y");
+    SYI_NC(nc_put_var_double(nc, v_br, db->body_radius), "body_radius");
+    SYI_NC(nc_put_var_double(nc, v_bdr, db->body_draft), "body_draft");
+    SYI_NC(nc_put_var_text(nc, v_bn, &db->body_name[0][0]), "body_name");
     int closing = nc;
     nc = -1;
-    NC(nc_close(closing), "close");
+    SYI_NC(nc_close(closing), "close");
     free(buf);
     free(deg);
     return syi_atomic_commit(tmp, path, err);
@@ -201,12 +176,12 @@ int sy_hydro_db_read(sy_hydro_db **out, const char *path, sy_error *err)
     sy_hydro_db *db = NULL;
     double *buf = NULL;
     size_t no, nh, nd, nb, nd2;
-    NC(nc_open(path, NC_NOWRITE, &nc), "open");
-    NC(dim_len(nc, "omega", &no), "dimension omega");
-    NC(dim_len(nc, "heading", &nh), "dimension heading");
-    NC(dim_len(nc, "dof", &nd), "dimension dof");
-    NC(dim_len(nc, "dof2", &nd2), "dimension dof2");
-    NC(dim_len(nc, "body", &nb), "dimension body");
+    SYI_NC(nc_open(path, NC_NOWRITE, &nc), "open");
+    SYI_NC(dim_len(nc, "omega", &no), "dimension omega");
+    SYI_NC(dim_len(nc, "heading", &nh), "dimension heading");
+    SYI_NC(dim_len(nc, "dof", &nd), "dimension dof");
+    SYI_NC(dim_len(nc, "dof2", &nd2), "dimension dof2");
+    SYI_NC(dim_len(nc, "body", &nb), "dimension body");
     if (nd2 != nd) {
         rc = sy_error_set(err, SY_EINPUT, "%s: dimension dof2 = %zu differs from dof = %zu", path, nd2, nd);
         goto fail;
@@ -218,40 +193,40 @@ int sy_hydro_db_read(sy_hydro_db **out, const char *path, sy_error *err)
         rc = sy_error_set(err, SY_ENOMEM, "%s: read buffer", path);
         goto fail;
     }
-    NC(get_var(nc, "omega", db->omega), "omega");
-    NC(get_var(nc, "heading", db->headings), "heading");
+    SYI_NC(get_var(nc, "omega", db->omega), "omega");
+    SYI_NC(get_var(nc, "heading", db->headings), "heading");
     for (size_t i = 0; i < nh; i++)
         db->headings[i] *= M_PI / 180.0;
-    NC(get_var(nc, "added_mass", db->added_mass), "added_mass");
-    NC(get_var(nc, "radiation_damping", db->damping), "radiation_damping");
-    NC(get_var(nc, "excitation_re", buf), "excitation_re");
+    SYI_NC(get_var(nc, "added_mass", db->added_mass), "added_mass");
+    SYI_NC(get_var(nc, "radiation_damping", db->damping), "radiation_damping");
+    SYI_NC(get_var(nc, "excitation_re", buf), "excitation_re");
     for (size_t i = 0; i < no * nh * nd; i++)
         db->excitation[i] = buf[i];
-    NC(get_var(nc, "excitation_im", buf), "excitation_im");
+    SYI_NC(get_var(nc, "excitation_im", buf), "excitation_im");
     for (size_t i = 0; i < no * nh * nd; i++)
         db->excitation[i] += I * buf[i];
-    NC(get_var(nc, "convergence", db->convergence), "convergence");
-    NC(nc_inq_varid(nc, "dof_body", &v), "dof_body");
-    NC(nc_get_var_int(nc, v, db->dof_body), "dof_body");
-    NC(nc_inq_varid(nc, "dof_mode", &v), "dof_mode");
-    NC(nc_get_var_int(nc, v, db->dof_mode), "dof_mode");
-    NC(get_var(nc, "body_x", db->body_x), "body_x");
-    NC(get_var(nc, "body_y", db->body_y), "body_y");
-    NC(get_var(nc, "body_radius", db->body_radius), "body_radius");
-    NC(get_var(nc, "body_draft", db->body_draft), "body_draft");
-    NC(nc_inq_varid(nc, "body_name", &v), "body_name");
-    NC(nc_get_var_text(nc, v, &db->body_name[0][0]), "body_name");
-    NC(nc_get_att_double(nc, NC_GLOBAL, "depth", &db->depth), "attribute depth");
-    NC(nc_get_att_double(nc, NC_GLOBAL, "density", &db->rho), "attribute density");
-    NC(nc_get_att_double(nc, NC_GLOBAL, "gravity", &db->g), "attribute gravity");
-    NC(nc_get_att_double(nc, NC_GLOBAL, "tolerance", &db->tolerance), "attribute tolerance");
+    SYI_NC(get_var(nc, "convergence", db->convergence), "convergence");
+    SYI_NC(nc_inq_varid(nc, "dof_body", &v), "dof_body");
+    SYI_NC(nc_get_var_int(nc, v, db->dof_body), "dof_body");
+    SYI_NC(nc_inq_varid(nc, "dof_mode", &v), "dof_mode");
+    SYI_NC(nc_get_var_int(nc, v, db->dof_mode), "dof_mode");
+    SYI_NC(get_var(nc, "body_x", db->body_x), "body_x");
+    SYI_NC(get_var(nc, "body_y", db->body_y), "body_y");
+    SYI_NC(get_var(nc, "body_radius", db->body_radius), "body_radius");
+    SYI_NC(get_var(nc, "body_draft", db->body_draft), "body_draft");
+    SYI_NC(nc_inq_varid(nc, "body_name", &v), "body_name");
+    SYI_NC(nc_get_var_text(nc, v, &db->body_name[0][0]), "body_name");
+    SYI_NC(nc_get_att_double(nc, NC_GLOBAL, "depth", &db->depth), "attribute depth");
+    SYI_NC(nc_get_att_double(nc, NC_GLOBAL, "density", &db->rho), "attribute density");
+    SYI_NC(nc_get_att_double(nc, NC_GLOBAL, "gravity", &db->g), "attribute gravity");
+    SYI_NC(nc_get_att_double(nc, NC_GLOBAL, "tolerance", &db->tolerance), "attribute tolerance");
     size_t len;
-    NC(nc_inq_attlen(nc, NC_GLOBAL, "truncation", &len), "attribute truncation");
+    SYI_NC(nc_inq_attlen(nc, NC_GLOBAL, "truncation", &len), "attribute truncation");
     if (len < sizeof db->truncation)
-        NC(nc_get_att_text(nc, NC_GLOBAL, "truncation", db->truncation), "attribute truncation");
-    NC(nc_inq_attlen(nc, NC_GLOBAL, "cache_key", &len), "attribute cache_key");
+        SYI_NC(nc_get_att_text(nc, NC_GLOBAL, "truncation", db->truncation), "attribute truncation");
+    SYI_NC(nc_inq_attlen(nc, NC_GLOBAL, "cache_key", &len), "attribute cache_key");
     if (len < sizeof db->cache_key)
-        NC(nc_get_att_text(nc, NC_GLOBAL, "cache_key", db->cache_key), "attribute cache_key");
+        SYI_NC(nc_get_att_text(nc, NC_GLOBAL, "cache_key", db->cache_key), "attribute cache_key");
     for (size_t i = 0; i < nd; i++)
         if (db->dof_mode[i] < 1 || db->dof_mode[i] > 5 || db->dof_body[i] < 0 || (size_t)db->dof_body[i] >= nb) {
             rc = sy_error_set(err, SY_EINPUT, "%s: dof %zu has body %d, mode %d (expected body < %zu, mode 1..5)",

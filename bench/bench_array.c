@@ -1,0 +1,193 @@
+/* Array solve timings (docs/benchmarks.md, section "array"): time per frequency for
+ * N = 1..100 bodies on a square grid (heave, 36 headings), the fitted cost exponent,
+ * the ratio to a bare dense LU (zgetrf) of the same size in the same run, a 3 x 3 array
+ * at 120 frequencies x 36 headings through sy_array_sweep on 2 threads, and peak memory.
+ * Bodies: floats (radius 5 m, draft 4 m, heave) if the float kind is available, else
+ * fixed columns (radius 5 m, surge) and the output says so. Invented layout: spacing
+ * 30 m, depth 30 m, M = 6 orders, Q = 4 depth modes, tolerance 1e-6. */
+#include "swellyield/array.h"
+
+#include <cblas.h>
+#include <lapacke.h>
+#include <math.h>
+#include <stdio.h>
+#include <stdlib.h>
+#include <sys/resource.h>
+#include <time.h>
+
+#define PI 3.14159265358979323846
+
+static double now(void)
+{
+    struct timespec t;
+    clock_gettime(CLOCK_MONOTONIC, &t);
+    return t.tv_sec + 1e-9 * t.tv_nsec;
+}
+
+static sy_array_type body_type(int use_float)
+{
+    sy_array_type t = {{SY_BODY_FLOAT, 5.0, 4.0, 0.0}, SY_ARRAY_HEAVE};
+    if (!use_float) {
+        t.geom.kind = SY_BODY_COLUMN;
+        t.modes = SY_ARRAY_SURGE;
+    }
+    return t;
+}
+
+static int make_plan_q(sy_array_plan **plan, size_t N, int use_float, size_t Q, sy_error *err)
+{
+    sy_array_settings s = {30.0, 1025.0, 9.81, 1e-6, 6, Q, 0.0};
+    sy_array_type t = body_type(use_float);
+    double beta[36];
+    for (int b = 0; b < 36; b++)
+        beta[b] = 2 * PI * b / 36;
+    size_t side = (size_t)ceil(sqrt((double)N));
+    sy_array_body *bodies = malloc(N * sizeof *bodies);
+    for (size_t i = 0; i < N; i++)
+        bodies[i] = (sy_array_body){30.0 * (double)(i % side), 30.0 * (double)(i / side), 0};
+    int rc = sy_array_plan_create(plan, &s, &t, 1, bodies, N, beta, 36, err);
+    free(bodies);
+    return rc;
+}
+
+static int make_plan(sy_array_plan **plan, size_t N, int use_float, sy_error *err)
+{
+    return make_plan_q(plan, N, use_float, 4, err);
+}
+
+/* seconds for one zgetrf of a random diagonally dominant n x n complex matrix */
+static double bare_lu(size_t n)
+{
+    double complex *a = malloc(n * n * sizeof *a);
+    lapack_int *piv = malloc(n * sizeof *piv);
+    srand(7);
+    for (size_t i = 0; i < n * n; i++)
+        a[i] = (rand() / (double)RAND_MAX - 0.5) + I * (rand() / (double)RAND_MAX - 0.5);
+    for (size_t i = 0; i < n; i++)
+        a[i * n + i] += (double)n;
+    double t0 = now();
+    LAPACKE_zgetrf(LAPACK_ROW_MAJOR, (lapack_int)n, (lapack_int)n, a, (lapack_int)n, piv);
+    double t = now() - t0;
+    free(a);
+    free(piv);
+    return t;
+}
+
+int main(void)
+{
+    sy_init();
+    sy_error err = SY_ERROR_INIT;
+    sy_array_plan *probe = NULL;
+    int use_float = make_plan(&probe, 1, 1, &err) == SY_OK;
+    sy_array_plan_free(probe);
+    printf("bench_array: bodies are %s (%s)\n", use_float ? "floats, heave" : "columns, surge",
+           use_float ? "float kind available" : "float kind not available");
+    openblas_set_num_threads(1);
+    printf("bench_array: single-threaded BLAS for the per-frequency table\n");
+    printf("%5s %9s %8s %12s %12s %8s %8s\n", "N", "unknowns", "dropped", "s/frequency", "bare LU s",
+           "ratio", "MB");
+    const size_t Ns[] = {1, 2, 4, 9, 16, 36, 64, 100};
+    double lx[8], ly[8];
+    size_t nfit = 0;
+    for (size_t c = 0; c < sizeof Ns / sizeof Ns[0]; c++) {
+        sy_array_plan *plan = NULL;
+        sy_array_work *work = NULL;
+        sy_array_hydro *res = NULL;
+        int rc = make_plan(&plan, Ns[c], use_float, &err);
+        if (rc == SY_OK)
+            rc = sy_array_work_alloc(&work, plan, &err);
+        if (rc == SY_OK)
+            rc = sy_array_hydro_alloc(&res, plan, &err);
+        size_t reps = Ns[c] <= 16 ? 10 : Ns[c] <= 36 ? 3 : 1;
+        double t0 = now();
+        for (size_t r = 0; rc == SY_OK && r < reps; r++)
+            rc = sy_array_solve(plan, 0.8 + 0.01 * (double)r, work, res, &err);
+        double t = (now() - t0) / (double)reps;
+        if (rc != SY_OK) {
+            printf("bench_array: N = %zu failed: %s\n", Ns[c], err.msg);
+        } else {
+            size_t nu = sy_array_plan_n_unknowns(plan);
+            double lu = bare_lu(nu);
+            struct rusage ru;
+            getrusage(RUSAGE_SELF, &ru);
+            printf("%5zu %9zu %8zu %12.4g %12.4g %8.2f %8.1f\n", Ns[c], nu, sy_array_plan_dropped(plan), t,
+                   lu, lu > 0 ? t / lu : 0.0, ru.ru_maxrss / 1024.0);
+            if (Ns[c] >= 9) {
+                lx[nfit] = log((double)Ns[c]);
+                ly[nfit] = log(t);
+                nfit++;
+            }
+        }
+        sy_array_hydro_free(res);
+        sy_array_work_free(work);
+        sy_array_plan_free(plan);
+    }
+    if (nfit >= 2) {
+        double mx = 0, my = 0, sxx = 0, sxy = 0;
+        for (size_t i = 0; i < nfit; i++) {
+            mx += lx[i] / nfit;
+            my += ly[i] / nfit;
+        }
+        for (size_t i = 0; i < nfit; i++) {
+            sxx += (lx[i] - mx) * (lx[i] - mx);
+            sxy += (lx[i] - mx) * (ly[i] - my);
+        }
+        printf("bench_array: cost exponent (least squares, N >= 9): time ~ N^%.2f\n", sxy / sxx);
+    }
+    /* N = 100 with fewer depth modes and with 2 BLAS threads */
+    for (size_t Q = 1; Q <= 4; Q *= 2)
+        for (int bt = 1; bt <= 2; bt++) {
+            sy_array_plan *plan = NULL;
+            sy_array_work *work = NULL;
+            sy_array_hydro *res = NULL;
+            openblas_set_num_threads(bt);
+            int rc = make_plan_q(&plan, 100, use_float, Q, &err);
+            if (rc == SY_OK)
+                rc = sy_array_work_alloc(&work, plan, &err);
+            if (rc == SY_OK)
+                rc = sy_array_hydro_alloc(&res, plan, &err);
+            double t0 = now();
+            if (rc == SY_OK)
+                rc = sy_array_solve(plan, 0.8, work, res, &err);
+            double t = now() - t0;
+            if (rc == SY_OK)
+                printf("bench_array: N = 100, Q = %zu (%zu unknowns), %d BLAS thread%s: %.3f s per frequency\n", Q,
+                       sy_array_plan_n_unknowns(plan), bt, bt > 1 ? "s" : "", t);
+            else
+                printf("bench_array: N = 100, Q = %zu failed: %s\n", Q, err.msg);
+            sy_array_hydro_free(res);
+            sy_array_work_free(work);
+            sy_array_plan_free(plan);
+        }
+    openblas_set_num_threads(1);
+    /* 3 x 3 array, 120 frequencies x 36 headings, sweep on 2 threads */
+    {
+        sy_array_plan *plan = NULL;
+        const size_t nw = 120;
+        double omega[120];
+        sy_array_hydro *res[120] = {0};
+        int rc = make_plan(&plan, 9, use_float, &err);
+        for (size_t i = 0; i < nw; i++) {
+            omega[i] = 0.3 + 1.5 * (double)i / (nw - 1);
+            if (rc == SY_OK)
+                rc = sy_array_hydro_alloc(&res[i], plan, &err);
+        }
+        for (int threads = 1; threads <= 2 && rc == SY_OK; threads++) {
+            double t0 = now();
+            rc = sy_array_sweep(plan, omega, nw, res, threads, &err);
+            double t = now() - t0;
+            if (rc == SY_OK)
+                printf("bench_array: 3x3 array, 120 frequencies x 36 headings, %d thread%s: %.3f s\n", threads,
+                       threads > 1 ? "s" : "", t);
+        }
+        if (rc != SY_OK)
+            printf("bench_array: sweep failed: %s\n", err.msg);
+        for (size_t i = 0; i < nw; i++)
+            sy_array_hydro_free(res[i]);
+        sy_array_plan_free(plan);
+    }
+    struct rusage ru;
+    getrusage(RUSAGE_SELF, &ru);
+    printf("bench_array: peak resident memory %.1f MB\n", ru.ru_maxrss / 1024.0);
+    return 0;
+}

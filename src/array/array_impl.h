@@ -1,0 +1,90 @@
+/* Private to the array module: plan and work bodies, and the cross-file helpers
+ * (translation blocks and scalings, shared by solve.c and the tests).
+ *
+ * Unknowns: for body i, depth modes q = 0..nq[i]-1 and orders n = -M..M, at
+ *   unk_off[i] + q (2M+1) + (n + M),
+ * in the scaled basis beta_{qn} = s_{qn} b_{qn} (outgoing) and alpha_{qn} = a_{qn} / s_{qn}
+ * (incident), s_{qn} = |Hhat_{qn}(k_q a)| of the body (body.h basis). Then
+ *   D~ = S D S,  T~ = S^-1 T S^-1,  G~ = G S,
+ * and D~ T~ = S (D T) S^-1 is similar to D T, so det(I - D~ T~) = det(I - D T). */
+#ifndef SY_ARRAY_IMPL_H
+#define SY_ARRAY_IMPL_H
+
+#include "swellyield/array.h"
+#include "swellyield/waves.h"
+
+#define SY_ARRAY_PI 3.14159265358979323846
+/* Largest angular order M accepted (stack buffers of 4M+1 phases; far beyond any
+ * useful truncation for bodies that are not touching). */
+#define SY_ARRAY_MAX_ORDER 64
+
+struct sy_array_plan {
+    sy_array_settings set;
+    size_t n_types, n_bodies, n_headings;
+    sy_array_type *types;
+    sy_array_body *bodies;
+    double *headings;
+    sy_body_plan **bplan;      /* per type */
+    size_t n_roots;            /* evanescent roots to compute per frequency */
+    size_t M, Q, nn;           /* orders -M..M (nn = 2M+1), depth modes */
+    /* pairs, row-major N x N: distance and direction from centre j to centre i,
+     * and the number of depth modes coupled (0 on the diagonal) */
+    double *pair_L, *pair_alpha;
+    size_t *pair_nq;
+    size_t *nq;                /* per body: depth modes among the unknowns (>= 1) */
+    size_t *unk_off;           /* per body, length N + 1 */
+    size_t n_unknowns;
+    size_t *dof_off;           /* per body, length N + 1 */
+    size_t n_dof;
+    size_t *dof_body;          /* per dof */
+    int *dof_mode;             /* per dof, 1..5 */
+    size_t n_rad;              /* radiating dofs (floats only) */
+    size_t *rad_dof;           /* per radiating column: its dof index */
+    size_t *rad_first;         /* per body, length N + 1: its first radiating column */
+    size_t n_rhs;              /* n_headings + n_rad */
+    size_t dropped;            /* (pair, evanescent mode) couplings dropped */
+};
+
+struct sy_array_work {
+    size_t n_types;
+    double complex *roots_k;          /* n_roots */
+    sy_wave_roots roots;
+    sy_body_work **bwork;             /* per type */
+    sy_body_waves **bwaves;           /* per type */
+    double *scale;                    /* per type: Q x (M+1), s_{q|n|} */
+    double complex *pairfn;           /* per ordered pair slot i < j (i N + j), per depth
+                                         mode q: orders 0..2M of H_p(k0 L) (q = 0) or
+                                         K_p(kq L) (q >= 1), (4M+1) values with room */
+    double complex *mat;              /* n_u x n_u row-major I - D~ T~, then the LU of its
+                                         transpose (column-major view, solve.c) */
+    int *pivots;                      /* n_u (lapack_int) */
+    /* right-hand sides column after column: element u of column c at [c n_u + u];
+     * columns: headings, then radiating dofs (plan->rad_dof) */
+    double complex *inc;              /* direct incident alpha, then total incident */
+    double complex *sol;              /* right-hand sides D~ inc, then beta */
+    double complex *fn;               /* 2M + 2 Bessel values */
+    double complex *blk;              /* (2M+1)^2: one translation block */
+    double complex *force;            /* n_dof x n_rhs */
+    int factored;                     /* mat holds a valid LU */
+    double complex omega;             /* of the last factorisation */
+};
+
+/* Fill work->roots, body results and scalings at omega (steps 1-2 of a solve). */
+int syi_array_prepare(const sy_array_plan *plan, double complex omega, sy_array_work *work,
+                      sy_error *err);
+/* Bessel rows of every coupled pair and depth mode at the prepared omega (needs prepare). */
+int syi_array_translation(const sy_array_plan *plan, sy_array_work *work, sy_error *err);
+/* The (2M+1) x (2M+1) block T~^{ij}_q (row m of body i, column n of body j, row-major):
+ * alpha^i_{qm} += sum_n T~[m, n] beta^j_{qn}. Needs syi_array_translation; q must be
+ * < pair_nq[i N + j]. */
+void syi_array_block(const sy_array_plan *plan, const sy_array_work *work, size_t i, size_t j,
+                     size_t q, double complex *out);
+/* Scale s_{qn} of body type t at depth mode q, order n (any sign). */
+static inline double syi_array_scale(const sy_array_plan *plan, const sy_array_work *work,
+                                     size_t t, size_t q, long n)
+{
+    size_t an = (size_t)(n < 0 ? -n : n);
+    return work->scale[(t * plan->Q + q) * (plan->M + 1) + an];
+}
+
+#endif

@@ -1,0 +1,311 @@
+/* Array plan: once per layout. Copies the layout, checks it (positive sizes, no two
+ * bounding circles closer than the margin), makes one body plan per body type, and
+ * prepares the pair geometry (distance L and direction alpha from centre j to centre i),
+ * the per-pair depth-mode truncation and the index maps of unknowns and dofs.
+ *
+ * Per-pair truncation: the evanescent wave of depth mode q leaving body j, normalised to
+ * its value on r = a_j, reaches the nearest point of body i with relative size
+ *   c_q(i, j) = K_0(kq (L - a_i)) / K_0(kq a_j)        (kq = (q - 1/2) pi / h, a lower
+ * bound of the real evanescent root, so c_q is an upper bound; K_n(x')/K_n(x) with
+ * x' > x decreases with n, so n = 0 is the largest). Modes with max(c_q(i,j), c_q(j,i))
+ * below the tolerance are dropped for that pair; the count is reported. */
+#include "array_impl.h"
+
+#include "swellyield/special.h"
+
+#include <inttypes.h>
+#include <math.h>
+#include <stdlib.h>
+#include <string.h>
+
+static int check_settings(const sy_array_settings *s, sy_error *err)
+{
+    if (!(s->h > 0.0) || !isfinite(s->h))
+        return sy_error_set(err, SY_EINVAL, "array: depth h must be > 0 m and finite, got %g", s->h);
+    if (!(s->rho > 0.0) || !(s->g > 0.0))
+        return sy_error_set(err, SY_EINVAL, "array: rho and g must be > 0, got %g, %g", s->rho, s->g);
+    if (!(s->tolerance > 0.0 && s->tolerance < 1.0))
+        return sy_error_set(err, SY_EINVAL, "array: tolerance must be in (0, 1), got %g", s->tolerance);
+    if (s->n_order < 1 || s->n_order > SY_ARRAY_MAX_ORDER)
+        return sy_error_set(err, SY_EINVAL, "array: angular order M must be in 1..%d, got %zu",
+                            SY_ARRAY_MAX_ORDER, s->n_order);
+    if (s->n_depth < 1)
+        return sy_error_set(err, SY_EINVAL, "array: need at least one depth mode, got %zu", s->n_depth);
+    if (!(s->margin >= 0.0))
+        return sy_error_set(err, SY_EINVAL, "array: margin must be >= 0 m, got %g", s->margin);
+    return SY_OK;
+}
+
+/* K_0(x') / K_0(x) for real x, x' > 0, from the scaled function. */
+static double k0_ratio(double xp, double x)
+{
+    double complex kp, k;
+    if (sy_special_besselk_scaled_array(0, xp, &kp, NULL) != SY_OK ||
+        sy_special_besselk_scaled_array(0, x, &k, NULL) != SY_OK)
+        return 1.0;   /* keep the mode if the estimate fails */
+    return cabs(kp) / cabs(k) * exp(-(xp - x));
+}
+
+static int layout(sy_array_plan *p, sy_error *err)
+{
+    const size_t N = p->n_bodies, Q = p->Q;
+    for (size_t i = 0; i < N; i++) {
+        const sy_array_body *bi = &p->bodies[i];
+        double ai = p->types[bi->type].geom.radius;
+        for (size_t j = 0; j < N; j++) {
+            if (i == j)
+                continue;
+            const sy_array_body *bj = &p->bodies[j];
+            double aj = p->types[bj->type].geom.radius;
+            double dx = bi->x - bj->x, dy = bi->y - bj->y, L = hypot(dx, dy);
+            if (j > i && !(L >= ai + aj + p->set.margin))
+                return sy_error_set(err, SY_EINVAL,
+                                    "array: bodies %zu at (%g, %g) and %zu at (%g, %g) overlap: "
+                                    "centre distance %g m < r1 + r2 + margin = %g m",
+                                    i, bi->x, bi->y, j, bj->x, bj->y, L, ai + aj + p->set.margin);
+            p->pair_L[i * N + j] = L;
+            p->pair_alpha[i * N + j] = atan2(dy, dx);
+            size_t nq = 1;
+            for (size_t q = 1; q < Q; q++) {
+                double kq = (q - 0.5) * SY_ARRAY_PI / p->set.h;
+                double c = fmax(k0_ratio(kq * (L - ai), kq * aj), k0_ratio(kq * (L - aj), kq * ai));
+                if (c < p->set.tolerance)
+                    break;
+                nq = q + 1;
+            }
+            p->pair_nq[i * N + j] = nq;
+            if (j > i)
+                p->dropped += Q - nq;
+        }
+    }
+    /* unknowns and dofs */
+    p->unk_off[0] = 0;
+    p->dof_off[0] = 0;
+    p->n_rad = 0;
+    for (size_t i = 0; i < N; i++) {
+        size_t nq = 1;
+        for (size_t j = 0; j < N; j++)
+            if (j != i && p->pair_nq[i * N + j] > nq)
+                nq = p->pair_nq[i * N + j];
+        p->nq[i] = nq;
+        p->unk_off[i + 1] = p->unk_off[i] + nq * p->nn;
+        const sy_array_type *t = &p->types[p->bodies[i].type];
+        size_t nd = 0;
+        for (int m = 0; m < SY_BODY_NMODES; m++)
+            if (t->modes & (1u << m))
+                nd++;
+        p->dof_off[i + 1] = p->dof_off[i] + nd;
+        if (t->geom.kind == SY_BODY_FLOAT)
+            p->n_rad += nd;
+    }
+    p->n_unknowns = p->unk_off[N];
+    p->n_dof = p->dof_off[N];
+    p->n_rhs = p->n_headings + p->n_rad;
+    p->dof_body = malloc((p->n_dof + 1) * sizeof *p->dof_body);
+    p->dof_mode = malloc((p->n_dof + 1) * sizeof *p->dof_mode);
+    p->rad_dof = malloc((p->n_rad + 1) * sizeof *p->rad_dof);
+    p->rad_first = malloc((N + 1) * sizeof *p->rad_first);
+    if (p->dof_body == NULL || p->dof_mode == NULL || p->rad_dof == NULL || p->rad_first == NULL)
+        return sy_error_set(err, SY_ENOMEM, "array plan index maps for %zu dofs", p->n_dof);
+    size_t d = 0, r = 0;
+    for (size_t i = 0; i < N; i++) {
+        const sy_array_type *t = &p->types[p->bodies[i].type];
+        p->rad_first[i] = r;
+        for (int m = 0; m < SY_BODY_NMODES; m++) {
+            if (!(t->modes & (1u << m)))
+                continue;
+            p->dof_body[d] = i;
+            p->dof_mode[d] = m + 1;
+            if (t->geom.kind == SY_BODY_FLOAT)
+                p->rad_dof[r++] = d;
+            d++;
+        }
+    }
+    p->rad_first[N] = r;
+    return SY_OK;
+}
+
+int sy_array_plan_create(sy_array_plan **out, const sy_array_settings *settings,
+                         const sy_array_type *types, size_t n_types,
+                         const sy_array_body *bodies, size_t n_bodies,
+                         const double *headings, size_t n_headings, sy_error *err)
+{
+    if (out == NULL || settings == NULL || types == NULL || bodies == NULL ||
+        (headings == NULL && n_headings > 0))
+        return sy_error_set(err, SY_EINVAL, "array plan: NULL argument");
+    int rc = check_settings(settings, err);
+    if (rc != SY_OK)
+        return rc;
+    if (n_types == 0 || n_bodies == 0)
+        return sy_error_set(err, SY_EINVAL, "array plan: need at least one body and one type, got %zu, %zu",
+                            n_bodies, n_types);
+    for (size_t i = 0; i < n_bodies; i++) {
+        if (bodies[i].type >= n_types)
+            return sy_error_set(err, SY_EINVAL, "array plan: body %zu has type %zu, expected < %zu", i,
+                                bodies[i].type, n_types);
+        if (!isfinite(bodies[i].x) || !isfinite(bodies[i].y))
+            return sy_error_set(err, SY_EINVAL, "array plan: body %zu position (%g, %g) not finite", i,
+                                bodies[i].x, bodies[i].y);
+    }
+    for (size_t t = 0; t < n_types; t++)
+        if ((types[t].modes & ~SY_ARRAY_ALL_MODES) != 0)
+            return sy_error_set(err, SY_EINVAL, "array plan: type %zu mode mask 0x%x has bits beyond 0x1f",
+                                t, types[t].modes);
+    for (size_t b = 0; b < n_headings; b++)
+        if (!isfinite(headings[b]))
+            return sy_error_set(err, SY_EINVAL, "array plan: heading %zu is not finite", b);
+
+    sy_array_plan *p = calloc(1, sizeof *p);
+    if (p == NULL)
+        return sy_error_set(err, SY_ENOMEM, "array plan");
+    const size_t N = n_bodies;
+    p->set = *settings;
+    p->n_types = n_types;
+    p->n_bodies = N;
+    p->n_headings = n_headings;
+    p->M = settings->n_order;
+    p->Q = settings->n_depth;
+    p->nn = 2 * p->M + 1;
+    p->types = malloc(n_types * sizeof *p->types);
+    p->bodies = malloc(N * sizeof *p->bodies);
+    p->headings = malloc((n_headings + 1) * sizeof *p->headings);
+    p->bplan = calloc(n_types, sizeof *p->bplan);
+    p->pair_L = calloc(N * N, sizeof *p->pair_L);
+    p->pair_alpha = calloc(N * N, sizeof *p->pair_alpha);
+    p->pair_nq = calloc(N * N, sizeof *p->pair_nq);
+    p->nq = calloc(N, sizeof *p->nq);
+    p->unk_off = calloc(N + 1, sizeof *p->unk_off);
+    p->dof_off = calloc(N + 1, sizeof *p->dof_off);
+    if (p->types == NULL || p->bodies == NULL || p->headings == NULL || p->bplan == NULL ||
+        p->pair_L == NULL || p->pair_alpha == NULL || p->pair_nq == NULL || p->nq == NULL ||
+        p->unk_off == NULL || p->dof_off == NULL) {
+        sy_array_plan_free(p);
+        return sy_error_set(err, SY_ENOMEM, "array plan for %zu bodies", N);
+    }
+    memcpy(p->types, types, n_types * sizeof *types);
+    memcpy(p->bodies, bodies, N * sizeof *bodies);
+    if (n_headings > 0)
+        memcpy(p->headings, headings, n_headings * sizeof *headings);
+
+    rc = layout(p, err);
+    for (size_t t = 0; rc == SY_OK && t < n_types; t++) {
+        rc = sy_body_plan_create(&p->bplan[t], &types[t].geom, settings->h, settings->tolerance,
+                                 p->M, p->Q, err);
+        if (rc != SY_OK)
+            sy_error_prefix(err, "array plan: body type %zu", t);
+        else if (sy_body_plan_roots_needed(p->bplan[t]) > p->n_roots)
+            p->n_roots = sy_body_plan_roots_needed(p->bplan[t]);
+    }
+    if (rc != SY_OK) {
+        sy_array_plan_free(p);
+        return rc;
+    }
+    if (p->n_roots < p->Q - 1)
+        p->n_roots = p->Q - 1;
+    *out = p;
+    return SY_OK;
+}
+
+void sy_array_plan_free(sy_array_plan *p)
+{
+    if (p == NULL)
+        return;
+    if (p->bplan != NULL)
+        for (size_t t = 0; t < p->n_types; t++)
+            sy_body_plan_free(p->bplan[t]);
+    free(p->bplan);
+    free(p->types);
+    free(p->bodies);
+    free(p->headings);
+    free(p->pair_L);
+    free(p->pair_alpha);
+    free(p->pair_nq);
+    free(p->nq);
+    free(p->unk_off);
+    free(p->dof_off);
+    free(p->dof_body);
+    free(p->dof_mode);
+    free(p->rad_dof);
+    free(p->rad_first);
+    free(p);
+}
+
+size_t sy_array_plan_n_dof(const sy_array_plan *plan) { return plan->n_dof; }
+size_t sy_array_plan_n_unknowns(const sy_array_plan *plan) { return plan->n_unknowns; }
+size_t sy_array_plan_n_headings(const sy_array_plan *plan) { return plan->n_headings; }
+size_t sy_array_plan_dropped(const sy_array_plan *plan) { return plan->dropped; }
+
+void sy_array_plan_dof(const sy_array_plan *plan, size_t d, size_t *body, int *mode)
+{
+    if (d >= plan->n_dof) {
+        *body = (size_t)-1;
+        *mode = 0;
+        return;
+    }
+    *body = plan->dof_body[d];
+    *mode = plan->dof_mode[d];
+}
+
+static uint64_t fnv(uint64_t h, const void *data, size_t n)
+{
+    const unsigned char *c = data;
+    for (size_t i = 0; i < n; i++) {
+        h ^= c[i];
+        h *= 1099511628211ull;   /* FNV-1a 64-bit prime */
+    }
+    return h;
+}
+
+uint64_t sy_array_plan_key(const sy_array_plan *p)
+{
+    uint64_t h = 14695981039346656037ull;   /* FNV-1a 64-bit offset basis */
+    const sy_array_settings *s = &p->set;
+    double sd[6] = {s->h, s->rho, s->g, s->tolerance, s->margin, 0.0};
+    uint64_t sz[2] = {s->n_order, s->n_depth};
+    h = fnv(h, sd, sizeof sd);
+    h = fnv(h, sz, sizeof sz);
+    for (size_t t = 0; t < p->n_types; t++) {
+        const sy_array_type *ty = &p->types[t];
+        double g[3] = {ty->geom.radius, ty->geom.kind == SY_BODY_COLUMN ? s->h : ty->geom.draft,
+                       ty->geom.z_rot};
+        uint64_t k[2] = {(uint64_t)ty->geom.kind, ty->modes};
+        h = fnv(h, g, sizeof g);
+        h = fnv(h, k, sizeof k);
+    }
+    for (size_t i = 0; i < p->n_bodies; i++) {
+        double xy[2] = {p->bodies[i].x, p->bodies[i].y};
+        uint64_t t = p->bodies[i].type;
+        h = fnv(h, xy, sizeof xy);
+        h = fnv(h, &t, sizeof t);
+    }
+    h = fnv(h, p->headings, p->n_headings * sizeof *p->headings);
+    return h;
+}
+
+void sy_array_plan_truncation(const sy_array_plan *p, char *buf, size_t n)
+{
+    if (buf == NULL || n == 0)
+        return;
+    size_t pairs = p->n_bodies * (p->n_bodies - 1) / 2 * (p->Q - 1);
+    snprintf(buf, n, "M = %zu, Q = %zu, tolerance %g, %zu of %zu (pair, evanescent mode) couplings dropped",
+             p->M, p->Q, p->set.tolerance, p->dropped, pairs);
+}
+
+void sy_array_plan_describe(const sy_array_plan *p, FILE *f)
+{
+    const sy_array_settings *s = &p->set;
+    fprintf(f, "array: %zu bodies, %zu types, depth %g m, rho %g kg/m^3, g %g m/s^2\n",
+            p->n_bodies, p->n_types, s->h, s->rho, s->g);
+    fprintf(f, "array: orders -%zu..%zu, %zu depth modes, tolerance %g, margin %g m\n", p->M, p->M,
+            p->Q, s->tolerance, s->margin);
+    for (size_t t = 0; t < p->n_types; t++) {
+        const sy_array_type *ty = &p->types[t];
+        fprintf(f, "array: type %zu: %s, radius %g m, draft %g m, z_rot %g m, modes 0x%x\n", t,
+                ty->geom.kind == SY_BODY_COLUMN ? "column" : "float", ty->geom.radius,
+                ty->geom.kind == SY_BODY_COLUMN ? s->h : ty->geom.draft, ty->geom.z_rot, ty->modes);
+    }
+    fprintf(f, "array: %zu unknowns, %zu dofs (%zu radiating), %zu headings, %zu right-hand sides\n",
+            p->n_unknowns, p->n_dof, p->n_rad, p->n_headings, p->n_rhs);
+    fprintf(f, "array: %zu (pair, evanescent mode) couplings below tolerance dropped\n", p->dropped);
+    fprintf(f, "array: key %016" PRIx64 "\n", sy_array_plan_key(p));
+}

@@ -1,0 +1,679 @@
+/* The four tuning strategies over a climate: power matrices, annual energy, q-factor
+ * (yield.h). Responses come from the dynamics module, sea states from seastates.c.
+ * Responses that do not depend on the bin (fixed damping, one site damping, the
+ * reactive bound) are tabulated once per (omega, heading) and each bin is a weighted
+ * sum of the table; the per-sea-state search evaluates only the bin's headings. */
+#include <complex.h>
+#include "yield_impl.h"
+#include "swellyield/dynamics.h"
+
+#include <gsl/gsl_errno.h>
+#include <gsl/gsl_min.h>
+#include <gsl/gsl_roots.h>
+#include <math.h>
+#include <stdlib.h>
+#include <string.h>
+
+/* The PTO acts on heave (dynamics.h: one mode per device, heave by default). */
+#define SY_PTO_MODE 3
+
+/* Search range for the shared damping, relative to the isolated device's passive optimum
+ * at the bin's energy frequency: +-3 decades hold every sensible PTO setting. */
+#define B_RANGE 1e3
+#define SCAN_POINTS 13  /* coarse log scan that brackets the maximum (half a decade apart) */
+#define LOGB_TOL 1e-5   /* precision of log b: the power is flat at its maximum, so this
+                           is far below any effect on energy */
+#define MAX_ITER 100
+
+const char *sy_yield_strategy_name(int s)
+{
+    static const char *const names[] = {"fixed", "per_sea_state", "site_optimal", "reactive_bound"};
+    return s >= 0 && s < SY_YIELD_N_STRATEGIES ? names[s] : "?";
+}
+
+typedef struct ctx {
+    const sy_model *m;
+    const syi_yield_seas *seas;
+    const sy_hydro_db *db;
+    size_t nd, no, nh;              /* devices, frequencies, headings */
+    sy_dyn_plan *plan;
+    sy_dyn_work *work;
+    sy_dyn_modal *modal;
+    size_t n_iso;                   /* distinct isolated databases */
+    const sy_hydro_db **iso_db;     /* [n_iso] */
+    size_t *iso_of;                 /* [nd] */
+    sy_model *iso_model;            /* [n_iso] one-device models */
+    sy_dyn_plan **iso_plan;         /* [n_iso] */
+    sy_dyn_work **iso_work;         /* [n_iso] */
+    sy_dyn_modal **iso_modal;       /* [n_iso] */
+    double complex *scratch, *xi;   /* [nd], [nh * n_dof] */
+    double *pw, *m2, *pdev, *vdev;  /* [nd] each */
+    double *ph;                     /* [nh] */
+    double *tab_p, *tab_v;          /* [no][nh][nd] power, motion^2 per unit amplitude^2 */
+    double *tab_ip;                 /* [no][nh][nd] isolated power of each device */
+    double *gp;                     /* [n_groups][nd] unit-Hs group powers */
+    size_t group;                   /* group being optimised */
+    double limit_v;                 /* motion variance at the stroke limit for the bin being solved */
+    sy_error *err;
+} ctx;
+
+static double electrical(const sy_model *m, double mech) { return fmin(m->efficiency * mech, m->rated_power); }
+
+/* Unit-Hs array power and motion variance of group g for shared damping b (the group's
+ * headings only), into pdev, vdev. */
+static void group_modal(ctx *c, size_t g, double b)
+{
+    const syi_yield_seas *s = c->seas;
+    memset(c->pdev, 0, c->nd * sizeof *c->pdev);
+    memset(c->vdev, 0, c->nd * sizeof *c->vdev);
+    for (size_t ih = 0; ih < c->nh; ih++) {
+        double d = s->dir[g * c->nh + ih];
+        for (size_t io = 0; d > 0 && io < c->no; io++) {
+            double a2 = s->amp2[g * c->no + io] * d;
+            if (a2 == 0.0)
+                continue;
+            sy_dyn_modal_eval(c->modal, io, ih, b, c->scratch, c->pw, c->m2);
+            for (size_t q = 0; q < c->nd; q++) {
+                c->pdev[q] += a2 * c->pw[q];
+                c->vdev[q] += 0.5 * a2 * c->m2[q];
+            }
+        }
+    }
+}
+
+/* Sum a per-(omega, heading, device) table over group g (unit Hs) into out[nd]. */
+static void group_table(const ctx *c, size_t g, const double *tab, double scale, double *out)
+{
+    const syi_yield_seas *s = c->seas;
+    memset(out, 0, c->nd * sizeof *out);
+    for (size_t ih = 0; ih < c->nh; ih++) {
+        double d = s->dir[g * c->nh + ih];
+        for (size_t io = 0; d > 0 && io < c->no; io++) {
+            double a2 = scale * s->amp2[g * c->no + io] * d;
+            const double *t = tab + (io * c->nh + ih) * c->nd;
+            for (size_t q = 0; a2 > 0 && q < c->nd; q++)
+                out[q] += a2 * t[q];
+        }
+    }
+}
+
+static void scale(double *v, size_t n, double f)
+{
+    for (size_t i = 0; i < n; i++)
+        v[i] *= f;
+}
+
+/* Isolated power of every device at shared damping b into tab_ip (all omega, headings). */
+static void iso_table_modal(ctx *c, double b)
+{
+    double complex sc;
+    for (size_t io = 0; io < c->no; io++)
+        for (size_t ih = 0; ih < c->nh; ih++)
+            for (size_t q = 0; q < c->nd; q++) {
+                double p;
+                sy_dyn_modal_eval(c->iso_modal[c->iso_of[q]], io, ih, b, &sc, &p, NULL);
+                c->tab_ip[(io * c->nh + ih) * c->nd + q] = p;
+            }
+}
+
+static void array_table_modal(ctx *c, double b)
+{
+    for (size_t io = 0; io < c->no; io++)
+        for (size_t ih = 0; ih < c->nh; ih++) {
+            size_t at = (io * c->nh + ih) * c->nd;
+            sy_dyn_modal_eval(c->modal, io, ih, b, c->scratch, c->tab_p + at, c->tab_v + at);
+        }
+}
+
+/* ---- one-dimensional searches on x = log b ---- */
+
+typedef struct scalar_fn {
+    double (*f)(double x, void *p);
+    void *p;
+} scalar_fn;
+
+static double neg_fn(double x, void *pp)
+{
+    const scalar_fn *o = pp;
+    return -o->f(x, o->p);
+}
+
+/* Argmax of o on [xlo, xhi]: a coarse scan brackets the maximum, then GSL Brent. An
+ * optimum on the boundary of the range is kept as is. */
+static int maximise(const scalar_fn *o, double xlo, double xhi, double *xbest, sy_error *err)
+{
+    double xs[SCAN_POINTS], fs[SCAN_POINTS];
+    size_t best = 0;
+    for (size_t i = 0; i < SCAN_POINTS; i++) {
+        xs[i] = xlo + (xhi - xlo) * (double)i / (SCAN_POINTS - 1);
+        fs[i] = o->f(xs[i], o->p);
+        if (fs[i] > fs[best])
+            best = i;
+    }
+    *xbest = xs[best];
+    if (best == 0 || best == SCAN_POINTS - 1 || !(fs[best] > fs[best - 1] && fs[best] > fs[best + 1]))
+        return SY_OK;
+    gsl_min_fminimizer *mn = gsl_min_fminimizer_alloc(gsl_min_fminimizer_brent);
+    if (mn == NULL)
+        return sy_error_set(err, SY_ENOMEM, "damping search");
+    gsl_function g = {neg_fn, (void *)o};
+    int st = gsl_min_fminimizer_set_with_values(mn, &g, xs[best], -fs[best], xs[best - 1], -fs[best - 1],
+                                                xs[best + 1], -fs[best + 1]);
+    for (int it = 0; st == GSL_SUCCESS && it < MAX_ITER; it++) {
+        st = gsl_min_fminimizer_iterate(mn);
+        if (gsl_min_test_interval(gsl_min_fminimizer_x_lower(mn), gsl_min_fminimizer_x_upper(mn), LOGB_TOL, 0.0) ==
+            GSL_SUCCESS)
+            break;
+    }
+    if (st == GSL_SUCCESS)
+        *xbest = gsl_min_fminimizer_x_minimum(mn);
+    gsl_min_fminimizer_free(mn);
+    return st == GSL_SUCCESS ? SY_OK : sy_error_set(err, SY_ENOCONV, "damping search: %s", gsl_strerror(st));
+}
+
+/* Root of o on [xlo, xhi] (o changes sign there) by GSL Brent. */
+static int root(const scalar_fn *o, double xlo, double xhi, double *x, sy_error *err)
+{
+    gsl_root_fsolver *rs = gsl_root_fsolver_alloc(gsl_root_fsolver_brent);
+    if (rs == NULL)
+        return sy_error_set(err, SY_ENOMEM, "stroke limit search");
+    gsl_function g = {o->f, o->p};
+    int st = gsl_root_fsolver_set(rs, &g, xlo, xhi);
+    for (int it = 0; st == GSL_SUCCESS && it < MAX_ITER; it++) {
+        st = gsl_root_fsolver_iterate(rs);
+        if (gsl_root_test_interval(gsl_root_fsolver_x_lower(rs), gsl_root_fsolver_x_upper(rs), LOGB_TOL, 0.0) ==
+            GSL_SUCCESS)
+            break;
+    }
+    /* The upper end keeps the stroke within the limit. */
+    *x = gsl_root_fsolver_x_upper(rs);
+    gsl_root_fsolver_free(rs);
+    return st == GSL_SUCCESS ? SY_OK : sy_error_set(err, SY_ENOCONV, "stroke limit search: %s", gsl_strerror(st));
+}
+
+static double group_power_fn(double x, void *p)
+{
+    ctx *c = p;
+    group_modal(c, c->group, exp(x));
+    double s = 0;
+    for (size_t q = 0; q < c->nd; q++)
+        s += c->pdev[q];
+    return s;
+}
+
+/* Largest unit-Hs motion variance minus the bin's limit variance (decreasing in b). */
+static double group_stroke_fn(double x, void *p)
+{
+    ctx *c = p;
+    group_modal(c, c->group, exp(x));
+    double v = 0;
+    for (size_t q = 0; q < c->nd; q++)
+        v = fmax(v, c->vdev[q]);
+    return v - c->limit_v;
+}
+
+static double site_energy_fn(double x, void *p)
+{
+    ctx *c = p;
+    const syi_yield_seas *s = c->seas;
+    array_table_modal(c, exp(x));
+    for (size_t g = 0; g < s->n_groups; g++)
+        group_table(c, g, c->tab_p, 1.0, c->gp + g * c->nd);
+    double e = 0;
+    for (size_t k = 0; k < s->n; k++)
+        for (size_t q = 0; q < c->nd; q++)
+            e += s->hours[k] * electrical(c->m, s->hs2[k] * c->gp[s->group[k] * c->nd + q]);
+    return e;
+}
+
+/* Reference damping for group g: the first isolated device's passive optimum at the
+ * grid frequency nearest the group's energy frequency (Falnes; dynamics.h). */
+static double reference_damping(const ctx *c, size_t g)
+{
+    const sy_hydro_db *iso = c->iso_db[0];
+    size_t io = 0, dof = 0, n = iso->n_dof;
+    for (size_t i = 1; i < c->no; i++)
+        if (fabs(iso->omega[i] - c->seas->omega_e[g]) < fabs(iso->omega[io] - c->seas->omega_e[g]))
+            io = i;
+    for (size_t i = 0; i < n; i++)
+        if (iso->dof_mode[i] == SY_PTO_MODE)
+            dof = i;
+    double om = iso->omega[io];
+    double b = sy_dyn_passive_optimum(om, sy_dyn_mass(c->iso_plan[0], 0, SY_PTO_MODE),
+                                      iso->added_mass[(io * n + dof) * n + dof], iso->damping[(io * n + dof) * n + dof],
+                                      sy_dyn_stiffness(c->iso_plan[0], 0, SY_PTO_MODE) + c->m->pto_stiffness);
+    return b > 0 && isfinite(b) ? b : 1e5; /* 1e5 N s/m: order of a 5 m float's radiation damping */
+}
+
+/* Store bin k's results for strategy st; pdev/vdev hold the array's mechanical power
+ * and motion variance, iso[nd] the isolated devices' mechanical power. */
+static void store_bin(const ctx *c, sy_yield_result *r, int st, size_t k, const double *iso, double b, int limited)
+{
+    sy_yield_strategy *y = &r->s[st];
+    size_t t = c->seas->bin[k], nd = c->nd;
+    double parr = 0, piso = 0;
+    for (size_t q = 0; q < nd; q++) {
+        double pe = electrical(c->m, c->pdev[q]);
+        y->power[t * nd + q] = pe;
+        y->stroke[t * nd + q] = 4.0 * sqrt(c->vdev[q]);
+        parr += pe;
+        y->power_iso_dev[t * nd + q] = electrical(c->m, iso[q]);
+        piso += y->power_iso_dev[t * nd + q];
+        if (y->stroke[t * nd + q] > c->m->max_stroke * (1 + LOGB_TOL))
+            limited = 2;
+    }
+    y->power_array[t] = parr;
+    y->power_iso[t] = piso;
+    y->damping[t] = b;
+    y->stroke_limited[t] = (unsigned char)limited;
+    y->n_stroke_exceeded += limited == 2;
+}
+
+/* Bins from per-(omega, heading) tables: the group sums scaled by each bin's Hs^2. */
+static void store_from_tables(ctx *c, sy_yield_result *r, int st, double *iso, double b)
+{
+    const syi_yield_seas *s = c->seas;
+    size_t nd = c->nd;
+    double *gv = c->gp + s->n_groups * nd, *gi = gv + s->n_groups * nd;
+    for (size_t g = 0; g < s->n_groups; g++) {
+        group_table(c, g, c->tab_p, 1.0, c->gp + g * nd);
+        group_table(c, g, c->tab_v, 0.5, gv + g * nd);
+        group_table(c, g, c->tab_ip, 1.0, gi + g * nd);
+    }
+    for (size_t k = 0; k < s->n; k++) {
+        size_t g = s->group[k];
+        for (size_t q = 0; q < nd; q++) {
+            c->pdev[q] = s->hs2[k] * c->gp[g * nd + q];
+            c->vdev[q] = s->hs2[k] * gv[g * nd + q];
+            iso[q] = s->hs2[k] * gi[g * nd + q];
+        }
+        store_bin(c, r, st, k, iso, b, 0);
+    }
+}
+
+static int strategy_fixed(ctx *c, sy_yield_result *r)
+{
+    size_t nd = c->nd, no = c->no, nh = c->nh, ndof = sy_dyn_n_dof(c->plan);
+    double *damp = malloc(nd * sizeof *damp), *stiff = malloc(nd * sizeof *stiff), *iso = malloc(nd * sizeof *iso);
+    int rc = damp && stiff && iso ? SY_OK : sy_error_set(c->err, SY_ENOMEM, "fixed tuning");
+    for (size_t q = 0; rc == SY_OK && q < nd; q++) {
+        const sy_model_device *d = &c->m->devices[sy_dyn_device_body(c->plan, q)];
+        damp[q] = d->pto_damping, stiff[q] = d->pto_stiffness;
+    }
+    for (size_t io = 0; rc == SY_OK && io < no; io++) {
+        rc = sy_dyn_response(c->plan, io, damp, stiff, c->work, c->xi, c->tab_p + io * nh * nd, c->err);
+        for (size_t ih = 0; rc == SY_OK && ih < nh; ih++)
+            for (size_t q = 0; q < nd; q++) {
+                double complex x = c->xi[ih * ndof + sy_dyn_pto_dof(c->plan, q)];
+                c->tab_v[(io * nh + ih) * nd + q] = creal(x) * creal(x) + cimag(x) * cimag(x);
+            }
+        for (size_t q = 0; rc == SY_OK && q < nd; q++) {
+            size_t g = c->iso_of[q];
+            rc = sy_dyn_response(c->iso_plan[g], io, &damp[q], &stiff[q], c->iso_work[g], NULL, c->ph, c->err);
+            for (size_t ih = 0; rc == SY_OK && ih < nh; ih++)
+                c->tab_ip[(io * nh + ih) * nd + q] = c->ph[ih];
+        }
+    }
+    if (rc == SY_OK)
+        store_from_tables(c, r, SY_TUNING_FIXED, iso, NAN);
+    free(damp);
+    free(stiff);
+    free(iso);
+    return rc;
+}
+
+/* Per sea state: the unconstrained optimum depends only on the bin's group (the power
+ * scales with Hs^2), so it is searched once per group; the stroke limit, which depends
+ * on Hs, then raises the damping bin by bin to b_min with stroke(b_min) = max_stroke
+ * (the power is taken as unimodal in b, so the constrained optimum is max(b_opt, b_min)). */
+static int strategy_per_sea_state(ctx *c, sy_yield_result *r)
+{
+    const syi_yield_seas *s = c->seas;
+    size_t nd = c->nd;
+    double *iso = malloc(nd * sizeof *iso), *bopt = malloc(s->n_groups * sizeof *bopt);
+    int rc = iso && bopt ? SY_OK : sy_error_set(c->err, SY_ENOMEM, "per-sea-state tuning");
+    scalar_fn power = {group_power_fn, c}, stroke = {group_stroke_fn, c};
+    for (size_t g = 0; rc == SY_OK && g < s->n_groups; g++) {
+        double bref = reference_damping(c, g), x;
+        c->group = g;
+        rc = maximise(&power, log(bref / B_RANGE), log(bref * B_RANGE), &x, c->err);
+        bopt[g] = exp(x);
+    }
+    for (size_t k = 0; rc == SY_OK && k < s->n; k++) {
+        size_t g = s->group[k];
+        double b = bopt[g], xhi = log(reference_damping(c, g) * B_RANGE);
+        int limited = 0;
+        c->group = g;
+        if (isfinite(c->m->max_stroke)) {
+            /* Stroke 4 sqrt(Hs^2 v) <= limit  <=>  v <= limit^2 / (16 Hs^2). */
+            c->limit_v = c->m->max_stroke * c->m->max_stroke / (16.0 * s->hs2[k]);
+            if (group_stroke_fn(log(b), c) > 0) {
+                limited = 1;
+                double x = xhi;
+                if (group_stroke_fn(xhi, c) <= 0) /* else even the largest damping exceeds it: flagged */
+                    rc = root(&stroke, log(b), xhi, &x, c->err);
+                b = exp(x);
+            }
+        }
+        if (rc != SY_OK)
+            break;
+        /* Isolated devices at the same damping in the same sea. */
+        memset(iso, 0, nd * sizeof *iso);
+        double complex sc;
+        for (size_t ih = 0; ih < c->nh; ih++) {
+            double d = s->dir[g * c->nh + ih];
+            for (size_t io = 0; d > 0 && io < c->no; io++) {
+                double a2 = s->hs2[k] * s->amp2[g * c->no + io] * d, p;
+                for (size_t q = 0; a2 > 0 && q < nd; q++) {
+                    sy_dyn_modal_eval(c->iso_modal[c->iso_of[q]], io, ih, b, &sc, &p, NULL);
+                    iso[q] += a2 * p;
+                }
+            }
+        }
+        group_modal(c, g, b);
+        scale(c->pdev, nd, s->hs2[k]);
+        scale(c->vdev, nd, s->hs2[k]);
+        store_bin(c, r, SY_TUNING_PER_SEA_STATE, k, iso, b, limited);
+    }
+    free(iso);
+    free(bopt);
+    return rc;
+}
+
+static int strategy_site(ctx *c, sy_yield_result *r)
+{
+    /* Range: around the reference damping of the most frequent bin's group. */
+    size_t kmax = 0;
+    for (size_t k = 1; k < c->seas->n; k++)
+        if (c->seas->hours[k] > c->seas->hours[kmax])
+            kmax = k;
+    double bref = reference_damping(c, c->seas->group[kmax]), x;
+    scalar_fn energy = {site_energy_fn, c};
+    int rc = maximise(&energy, log(bref / B_RANGE), log(bref * B_RANGE), &x, c->err);
+    double *iso = malloc(c->nd * sizeof *iso);
+    if (rc == SY_OK && iso == NULL)
+        rc = sy_error_set(c->err, SY_ENOMEM, "site tuning");
+    if (rc == SY_OK) {
+        double b = exp(x);
+        r->s[SY_TUNING_SITE_OPTIMAL].site_damping = b;
+        array_table_modal(c, b);
+        iso_table_modal(c, b);
+        store_from_tables(c, r, SY_TUNING_SITE_OPTIMAL, iso, b);
+    }
+    free(iso);
+    return rc;
+}
+
+static int strategy_bound(ctx *c, sy_yield_result *r)
+{
+    const syi_yield_seas *s = c->seas;
+    size_t no = c->no, nh = c->nh, nd = c->nd;
+    double *arr = malloc(no * nh * sizeof *arr), *iso = malloc(c->n_iso * no * nh * sizeof *iso);
+    double *ga = malloc(2 * s->n_groups * sizeof *ga);
+    int rc = arr && iso && ga ? SY_OK : sy_error_set(c->err, SY_ENOMEM, "reactive bound");
+    for (size_t io = 0; rc == SY_OK && io < no; io++) {
+        rc = sy_dyn_reactive_bound(c->plan, io, c->work, arr + io * nh, c->err);
+        for (size_t g = 0; rc == SY_OK && g < c->n_iso; g++)
+            rc = sy_dyn_reactive_bound(c->iso_plan[g], io, c->iso_work[g], iso + (g * no + io) * nh, c->err);
+    }
+    for (size_t g = 0; rc == SY_OK && g < s->n_groups; g++) {
+        double pa = 0, pi = 0;
+        for (size_t ih = 0; ih < nh; ih++) {
+            double d = s->dir[g * nh + ih];
+            for (size_t io = 0; d > 0 && io < no; io++) {
+                double a2 = s->amp2[g * no + io] * d;
+                pa += a2 * arr[io * nh + ih];
+                for (size_t q = 0; q < nd; q++)
+                    pi += a2 * iso[(c->iso_of[q] * no + io) * nh + ih];
+            }
+        }
+        ga[2 * g] = pa, ga[2 * g + 1] = pi;
+    }
+    sy_yield_strategy *y = &r->s[SY_TUNING_REACTIVE_BOUND];
+    for (size_t k = 0; rc == SY_OK && k < s->n; k++) {
+        size_t t = s->bin[k], g = s->group[k];
+        y->power_array[t] = c->m->efficiency * s->hs2[k] * ga[2 * g];
+        y->power_iso[t] = c->m->efficiency * s->hs2[k] * ga[2 * g + 1];
+        for (size_t q = 0; q < nd; q++)
+            y->power[t * nd + q] = y->power_iso_dev[t * nd + q] = NAN;
+    }
+    free(arr);
+    free(iso);
+    free(ga);
+    return rc;
+}
+
+void sy_yield_result_free(sy_yield_result *r)
+{
+    if (r == NULL)
+        return;
+    free(r->hours);
+    free(r->resource);
+    for (int st = 0; st < SY_YIELD_N_STRATEGIES; st++) {
+        sy_yield_strategy *y = &r->s[st];
+        free(y->power);
+        free(y->power_array);
+        free(y->power_iso);
+        free(y->power_iso_dev);
+        free(y->energy_iso_dev);
+        free(y->damping);
+        free(y->stroke);
+        free(y->stroke_limited);
+        free(y->energy);
+    }
+    free(r);
+}
+
+static int result_alloc(sy_yield_result **out, size_t nt, size_t nd, sy_error *err)
+{
+    sy_yield_result *r = calloc(1, sizeof *r);
+    int ok = r != NULL;
+    if (ok) {
+        r->n_bins = nt, r->n_devices = nd;
+        r->hours = calloc(nt, sizeof *r->hours);
+        r->resource = calloc(nt, sizeof *r->resource);
+        ok = r->hours && r->resource;
+        for (int st = 0; ok && st < SY_YIELD_N_STRATEGIES; st++) {
+            sy_yield_strategy *y = &r->s[st];
+            y->power = calloc(nt * nd, sizeof *y->power);
+            y->power_array = calloc(nt, sizeof *y->power_array);
+            y->power_iso = calloc(nt, sizeof *y->power_iso);
+            y->power_iso_dev = calloc(nt * nd, sizeof *y->power_iso_dev);
+            y->energy_iso_dev = calloc(nd, sizeof *y->energy_iso_dev);
+            y->damping = calloc(nt, sizeof *y->damping);
+            y->stroke = calloc(nt * nd, sizeof *y->stroke);
+            y->stroke_limited = calloc(nt, sizeof *y->stroke_limited);
+            y->energy = calloc(nd, sizeof *y->energy);
+            ok = y->power && y->power_array && y->power_iso && y->power_iso_dev && y->energy_iso_dev && y->damping && y->stroke && y->stroke_limited && y->energy;
+            y->site_damping = NAN;
+            for (size_t t = 0; ok && t < nt; t++)
+                y->damping[t] = NAN;
+        }
+    }
+    if (!ok) {
+        sy_yield_result_free(r);
+        return sy_error_set(err, SY_ENOMEM, "yield results for %zu bins", nt);
+    }
+    *out = r;
+    return SY_OK;
+}
+
+/* Annual energy (W h/yr) of a per-bin power (W), strided: the climate module's
+ * occurrence-weighted sum, E = sum_bins P_bin O_bin (references.md 5.1). */
+typedef struct bin_power {
+    const double *p;
+    size_t stride;
+} bin_power;
+
+static int bin_power_of(const sy_climate_bin *bin, void *ctx, double *q, sy_error *err)
+{
+    (void)err;
+    const bin_power *bp = ctx;
+    *q = bp->p[bin->index * bp->stride];
+    return SY_OK;
+}
+
+static int annual(const sy_climate_table *climate, const double *p, size_t stride, double *energy, sy_error *err)
+{
+    bin_power bp = {p, stride};
+    sy_climate_average avg;
+    int rc = sy_climate_table_average(climate, bin_power_of, &bp, &avg, err);
+    *energy = rc == SY_OK ? avg.per_year : NAN;
+    return rc;
+}
+
+static void ctx_free(ctx *c)
+{
+    for (size_t g = 0; c->iso_plan != NULL && g < c->n_iso; g++) {
+        sy_dyn_modal_free(c->iso_modal[g]);
+        sy_dyn_work_free(c->iso_work[g]);
+        sy_dyn_plan_free(c->iso_plan[g]);
+    }
+    free(c->iso_db);
+    free(c->iso_of);
+    free(c->iso_model);
+    free(c->iso_plan);
+    free(c->iso_work);
+    free(c->iso_modal);
+    sy_dyn_modal_free(c->modal);
+    sy_dyn_work_free(c->work);
+    sy_dyn_plan_free(c->plan);
+    free(c->scratch);
+    free(c->xi);
+    free(c->pw);
+    free(c->m2);
+    free(c->pdev);
+    free(c->vdev);
+    free(c->ph);
+    free(c->tab_p);
+    free(c->tab_v);
+    free(c->tab_ip);
+    free(c->gp);
+    syi_yield_seas_free((syi_yield_seas *)c->seas);
+}
+
+/* Same grids and a heave dof on every body: the isolated databases must match the array's. */
+static int check_iso(const sy_hydro_db *a, const sy_hydro_db *iso, size_t k, sy_error *err)
+{
+    if (iso->n_bodies != 1 || iso->n_omega != a->n_omega || iso->n_headings != a->n_headings)
+        return sy_error_set(err, SY_EINPUT, "isolated database of device %zu: %zu bodies, %zu x %zu grid; expected 1 body on the array's %zu x %zu grid",
+                            k, iso->n_bodies, iso->n_omega, iso->n_headings, a->n_omega, a->n_headings);
+    for (size_t i = 0; i < a->n_omega; i++)
+        if (iso->omega[i] != a->omega[i])
+            return sy_error_set(err, SY_EINPUT, "isolated database of device %zu: omega[%zu] = %g, array %g", k, i,
+                                iso->omega[i], a->omega[i]);
+    return SY_OK;
+}
+
+int sy_yield_compute(sy_yield_result **out, const sy_model *m, const sy_climate_table *climate,
+                     const sy_hydro_db *db, const sy_hydro_db *const *iso_db, sy_error *err)
+{
+    ctx c;
+    memset(&c, 0, sizeof c);
+    c.m = m, c.db = db, c.err = err;
+    c.no = db->n_omega, c.nh = db->n_headings;
+    sy_yield_result *r = NULL;
+    syi_yield_seas *seas = NULL;
+    int rc = syi_yield_seas_create(&seas, m, climate, db->omega, db->n_omega, db->headings, db->n_headings, err);
+    c.seas = seas;
+    if (rc == SY_OK && seas->n == 0)
+        rc = sy_error_set(err, SY_EINPUT, "climate %s: no bin has non-zero occurrence", m->climate);
+    if (rc == SY_OK)
+        rc = sy_dyn_plan_create(&c.plan, m, db, SY_PTO_MODE, err);
+    if (rc == SY_OK)
+        rc = sy_dyn_work_alloc(&c.work, c.plan, err);
+    if (rc == SY_OK) {
+        c.nd = sy_dyn_n_devices(c.plan);
+        size_t nd = c.nd, ndof = sy_dyn_n_dof(c.plan);
+        c.scratch = malloc(nd * sizeof *c.scratch);
+        c.xi = malloc(c.nh * ndof * sizeof *c.xi);
+        c.pw = malloc(nd * sizeof *c.pw);
+        c.m2 = malloc(nd * sizeof *c.m2);
+        c.pdev = malloc(nd * sizeof *c.pdev);
+        c.vdev = malloc(nd * sizeof *c.vdev);
+        c.ph = malloc(c.nh * sizeof *c.ph);
+        c.tab_p = malloc(c.no * c.nh * nd * sizeof *c.tab_p);
+        c.tab_v = malloc(c.no * c.nh * nd * sizeof *c.tab_v);
+        c.tab_ip = malloc(c.no * c.nh * nd * sizeof *c.tab_ip);
+        c.gp = malloc(3 * seas->n_groups * nd * sizeof *c.gp); /* power, variance, isolated */
+        c.iso_db = calloc(nd, sizeof *c.iso_db);
+        c.iso_of = calloc(nd, sizeof *c.iso_of);
+        c.iso_model = calloc(nd, sizeof *c.iso_model);
+        c.iso_plan = calloc(nd, sizeof *c.iso_plan);
+        c.iso_work = calloc(nd, sizeof *c.iso_work);
+        c.iso_modal = calloc(nd, sizeof *c.iso_modal);
+        if (!c.scratch || !c.xi || !c.pw || !c.m2 || !c.pdev || !c.vdev || !c.ph || !c.tab_p || !c.tab_v ||
+            !c.tab_ip || !c.gp || !c.iso_db || !c.iso_of || !c.iso_model || !c.iso_plan || !c.iso_work || !c.iso_modal)
+            rc = sy_error_set(err, SY_ENOMEM, "yield workspace for %zu devices", nd);
+    }
+    if (rc == SY_OK)
+        rc = sy_dyn_modal_create(&c.modal, c.plan, m->pto_stiffness, err);
+    /* Distinct isolated devices: one plan and modal response each. */
+    for (size_t q = 0; rc == SY_OK && q < c.nd; q++) {
+        size_t body = sy_dyn_device_body(c.plan, q), g;
+        const sy_hydro_db *iso = iso_db[body];
+        for (g = 0; g < c.n_iso && c.iso_db[g] != iso; g++)
+            ;
+        c.iso_of[q] = g;
+        if (g < c.n_iso)
+            continue;
+        if ((rc = check_iso(db, iso, body, err)) != SY_OK)
+            break;
+        c.iso_db[g] = iso;
+        c.iso_model[g] = *m;
+        c.iso_model[g].devices = (sy_model_device *)&m->devices[body];
+        c.iso_model[g].n_devices = 1;
+        c.n_iso++;
+        rc = sy_dyn_plan_create(&c.iso_plan[g], &c.iso_model[g], iso, SY_PTO_MODE, err);
+        if (rc == SY_OK)
+            rc = sy_dyn_work_alloc(&c.iso_work[g], c.iso_plan[g], err);
+        if (rc == SY_OK)
+            rc = sy_dyn_modal_create(&c.iso_modal[g], c.iso_plan[g], m->pto_stiffness, err);
+    }
+    if (rc == SY_OK)
+        rc = result_alloc(&r, sy_climate_table_size(climate), c.nd, err);
+    if (rc == SY_OK) {
+        for (size_t k = 0; k < seas->n; k++) {
+            r->hours[seas->bin[k]] = seas->hours[k];
+            r->resource[seas->bin[k]] = seas->resource[k];
+            r->hours_covered += seas->hours[k];
+            r->mean_resource += seas->hours[k] * seas->resource[k];
+        }
+        r->mean_resource /= r->hours_covered;
+        r->max_outside = seas->max_outside;
+        r->max_dir_outside = seas->max_dir_outside;
+        rc = strategy_fixed(&c, r);
+    }
+    if (rc == SY_OK)
+        rc = strategy_per_sea_state(&c, r);
+    if (rc == SY_OK)
+        rc = strategy_site(&c, r);
+    if (rc == SY_OK)
+        rc = strategy_bound(&c, r);
+    for (int st = 0; rc == SY_OK && st < SY_YIELD_N_STRATEGIES; st++) {
+        sy_yield_strategy *y = &r->s[st];
+        rc = annual(climate, y->power_array, 1, &y->energy_array, err);
+        if (rc == SY_OK)
+            rc = annual(climate, y->power_iso, 1, &y->energy_iso, err);
+        for (size_t q = 0; rc == SY_OK && q < c.nd; q++) /* per device: not defined for the bound */
+            if (st == SY_TUNING_REACTIVE_BOUND) {
+                y->energy[q] = y->energy_iso_dev[q] = NAN;
+            } else {
+                rc = annual(climate, y->power + q, c.nd, &y->energy[q], err);
+                if (rc == SY_OK)
+                    rc = annual(climate, y->power_iso_dev + q, c.nd, &y->energy_iso_dev[q], err);
+            }
+        y->q_factor = y->energy_array / y->energy_iso;
+        y->mean_power = y->energy_array / SY_CLIMATE_HOURS_PER_YEAR;
+        y->capacity_factor = isfinite(m->rated_power) && st != SY_TUNING_REACTIVE_BOUND
+                                 ? y->mean_power / ((double)c.nd * m->rated_power)
+                                 : NAN;
+    }
+    ctx_free(&c);
+    if (rc != SY_OK) {
+        sy_yield_result_free(r);
+        return rc;
+    }
+    *out = r;
+    return SY_OK;
+}
