@@ -7,7 +7,8 @@
  *  - Complex argument, Re z >= 0, 1e-6 <= |z| <= 2e3, |Im z| <= 300, orders <= 400:
  *    double-complex algorithms (K_0, K_1 by series or Temme's CF2, Hankel from K, J and I
  *    by CF1 + Miller + Wronskian; ~1-15 us per array of 21 orders), checked against Arb.
- *    J, I at Re z < 0 by reflection.
+ *    J, I at Re z < 0 by reflection; J_n, I_n arrays at |z| <= 1e-2 (real or complex) by
+ *    the ascending series; J_nu, I_nu of real order also below |z| = 1e-6.
  *  - Anything else complex: Arb (FLINT) ball arithmetic, retried at higher precision
  *    until >= 53 correct bits (slower: ~10 us to ~1 ms).
  *
