@@ -140,6 +140,11 @@ SY_API int sy_array_solve(const sy_array_plan *plan, double complex omega, sy_ar
 SY_API int sy_array_interaction_logdet(const sy_array_plan *plan, double complex omega,
                                        sy_array_work *work, double complex *logdet,
                                        sy_error *err);
+/* log det(I - D T) of the factorisation left in the work by the last sy_array_solve or
+ * sy_array_interaction_logdet (no new factorisation: the resonance search gets the
+ * determinant of each array solve for free). SY_EINVAL if the work holds none. */
+SY_API int sy_array_factored_logdet(const sy_array_plan *plan, const sy_array_work *work,
+                                    double complex *logdet, sy_error *err);
 /* Solve (I - D T) x = rhs with the factorisation from the last sy_array_solve or
  * sy_array_interaction_logdet on this work. rhs, x: n_unknowns values in the scaled
  * basis (each partial wave normalised by |Hhat_{qn}(k_q a)|), rhs and x may alias. */

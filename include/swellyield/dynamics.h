@@ -87,6 +87,12 @@ SY_API void sy_dyn_modal_free(sy_dyn_modal *modal);
 SY_API void sy_dyn_modal_eval(const sy_dyn_modal *modal, size_t io, size_t ih, double b,
                               double complex *scratch, double *power, double *motion2);
 
+/* The plan's matrices (n_dof x n_dof row-major, read-only, owned by the plan): body mass
+ * and inertia, hydrostatic + mooring stiffness; visc[n_dof] the linearised viscous
+ * damping (diagonal). For the resonance search, which builds the impedance itself. */
+SY_API void sy_dyn_plan_matrices(const sy_dyn_plan *plan, const double **mass, const double **stiffness,
+                                 const double **visc);
+
 /* Mass, hydrostatic stiffness of body b's mode (1..5) as used by the plan. */
 SY_API double sy_dyn_mass(const sy_dyn_plan *plan, size_t body, int mode);
 SY_API double sy_dyn_stiffness(const sy_dyn_plan *plan, size_t body, int mode);

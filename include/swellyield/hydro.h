@@ -26,6 +26,7 @@
 #define SWELLYIELD_HYDRO_H
 
 #include "swellyield/core.h"
+#include "swellyield/array.h"
 #include "swellyield/hydrodb.h"
 #include "swellyield/model.h"
 
@@ -55,6 +56,12 @@ SY_API int sy_hydro_build(sy_hydro_set **out, const sy_model *model, int with_is
                           const char *cache_dir, int n_threads, sy_hydro_progress progress,
                           void *progress_ctx, sy_error *err);
 SY_API void sy_hydro_set_free(sy_hydro_set *set);
+
+/* The array plan for n of the model's devices (dev may point at one device for an
+ * isolated body), with the truncation above. Used by the sweeps here and by the
+ * resonance search. */
+SY_API int sy_hydro_plan_create(sy_array_plan **out, const sy_model *model, const sy_model_device *dev,
+                                size_t n, sy_error *err);
 
 #ifdef __cplusplus
 }

@@ -14,4 +14,5 @@
 #include "swellyield/yield.h"
 #include "swellyield/outputs.h"
 #include "swellyield/hydro.h"
+#include "swellyield/poles.h"
 #endif

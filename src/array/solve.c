@@ -497,6 +497,14 @@ int sy_array_interaction_logdet(const sy_array_plan *plan, double complex omega,
     rc = factorise(plan, w, omega, err);
     if (rc != SY_OK)
         return rc;
+    return sy_array_factored_logdet(plan, w, logdet, err);
+}
+
+int sy_array_factored_logdet(const sy_array_plan *plan, const sy_array_work *w, double complex *logdet,
+                             sy_error *err)
+{
+    if (!w->factored)
+        return sy_error_set(err, SY_EINVAL, "array logdet: no factorisation in this work");
     const size_t nu = plan->n_unknowns;
     const lapack_int *piv = (const lapack_int *)w->pivots;
     double complex s = 0.0;

@@ -36,6 +36,7 @@ int sy_cmd_check(int argc, char **argv);
 int sy_cmd_run(int argc, char **argv);
 int sy_cmd_hydro(int argc, char **argv);
 int sy_cmd_sea(int argc, char **argv);
+int sy_cmd_poles(int argc, char **argv);
 
 
 #endif

@@ -8,6 +8,7 @@
 static const sy_cli_verb verbs[] = {
     {"run", "the main job: array yield, power matrices, annual energy, q-factor", sy_cmd_run},
     {"hydro", "solve the array's hydrodynamics and write the database (NetCDF)", sy_cmd_hydro},
+    {"poles", "complex resonances of the array in the [resonance] region", sy_cmd_poles},
     {"sea", "wave climates and spectra: summary, CSV import, spectrum", sy_cmd_sea},
     {"check", "validate a project's inputs and say what a run would do", sy_cmd_check},
     {"version", "print the version and dependency versions", sy_cmd_version},

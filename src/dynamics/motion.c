@@ -129,6 +129,12 @@ size_t sy_dyn_n_dof(const sy_dyn_plan *plan) { return plan->n_dof; }
 size_t sy_dyn_device_body(const sy_dyn_plan *plan, size_t k) { return plan->device_body[k]; }
 size_t sy_dyn_pto_dof(const sy_dyn_plan *plan, size_t k) { return plan->pto_dof[k]; }
 
+void sy_dyn_plan_matrices(const sy_dyn_plan *plan, const double **mass, const double **stiffness,
+                          const double **visc)
+{
+    *mass = plan->mass, *stiffness = plan->stiff, *visc = plan->visc;
+}
+
 double sy_dyn_mass(const sy_dyn_plan *plan, size_t body, int mode)
 {
     for (size_t i = 0; i < plan->n_dof; i++)

@@ -56,21 +56,17 @@ static int db_from_results(sy_hydro_db *db, size_t first, sy_array_hydro **res, 
     return SY_OK;
 }
 
-static int run_job(const job *j, sy_hydro_db **out, size_t *computed, size_t *cached, sy_hydro_progress progress,
-                   void *pctx, size_t *done, size_t total, sy_error *err)
+int sy_hydro_plan_create(sy_array_plan **out, const sy_model *m, const sy_model_device *dev, size_t n,
+                         sy_error *err)
 {
-    const sy_model *m = j->m;
     /* Types: distinct (radius, draft). */
-    sy_array_type *types = calloc(j->n, sizeof *types);
-    sy_array_body *bodies = calloc(j->n, sizeof *bodies);
-    sy_array_plan *plan = NULL;
-    sy_hydro_db *db = NULL, *blk = NULL;
-    sy_array_hydro **res = NULL;
-    int rc = types && bodies ? SY_OK : sy_error_set(err, SY_ENOMEM, "array of %zu bodies", j->n);
+    sy_array_type *types = calloc(n, sizeof *types);
+    sy_array_body *bodies = calloc(n, sizeof *bodies);
+    int rc = types && bodies ? SY_OK : sy_error_set(err, SY_ENOMEM, "array of %zu bodies", n);
     size_t nt = 0;
     double a_max = 0, gap = INFINITY, l_min = INFINITY;
-    for (size_t b = 0; rc == SY_OK && b < j->n; b++) {
-        const sy_model_device *d = &j->dev[b];
+    for (size_t b = 0; rc == SY_OK && b < n; b++) {
+        const sy_model_device *d = &dev[b];
         size_t t;
         for (t = 0; t < nt && !(types[t].geom.radius == d->radius && types[t].geom.draft == d->draft); t++)
             ;
@@ -85,16 +81,29 @@ static int run_job(const job *j, sy_hydro_db **out, size_t *computed, size_t *ca
         bodies[b].x = d->x, bodies[b].y = d->y, bodies[b].type = t;
         a_max = fmax(a_max, d->radius);
         for (size_t c = 0; c < b; c++) {
-            double l = hypot(d->x - j->dev[c].x, d->y - j->dev[c].y);
+            double l = hypot(d->x - dev[c].x, d->y - dev[c].y);
             l_min = fmin(l_min, l);
-            gap = fmin(gap, l - d->radius - j->dev[c].radius);
+            gap = fmin(gap, l - d->radius - dev[c].radius);
         }
     }
     sy_array_settings s = {m->depth, m->rho, m->g, m->tolerance,
                            m->orders ? m->orders : angular_order(m, a_max, l_min),
                            m->depth_modes ? m->depth_modes : depth_modes(m, gap), 1e-3};
     if (rc == SY_OK)
-        rc = sy_array_plan_create(&plan, &s, types, nt, bodies, j->n, m->headings, m->n_headings, err);
+        rc = sy_array_plan_create(out, &s, types, nt, bodies, n, m->headings, m->n_headings, err);
+    free(types);
+    free(bodies);
+    return rc;
+}
+
+static int run_job(const job *j, sy_hydro_db **out, size_t *computed, size_t *cached, sy_hydro_progress progress,
+                   void *pctx, size_t *done, size_t total, sy_error *err)
+{
+    const sy_model *m = j->m;
+    sy_array_plan *plan = NULL;
+    sy_hydro_db *db = NULL, *blk = NULL;
+    sy_array_hydro **res = NULL;
+    int rc = sy_hydro_plan_create(&plan, m, j->dev, j->n, err);
     size_t nd = rc == SY_OK ? sy_array_plan_n_dof(plan) : 0;
     if (rc == SY_OK)
         rc = sy_hydro_db_alloc(&db, m->n_omega, m->n_headings, j->n, nd, err);
@@ -119,9 +128,7 @@ static int run_job(const job *j, sy_hydro_db **out, size_t *computed, size_t *ca
             snprintf(db->body_name[b], SY_HYDRODB_NAME_LEN, "%s", j->dev[b].name);
         }
         db->depth = m->depth, db->rho = m->rho, db->g = m->g, db->tolerance = m->tolerance;
-        snprintf(db->truncation, sizeof db->truncation,
-                 "angular orders -%zu..%zu, %zu depth modes, %zu evanescent couplings dropped below tolerance",
-                 s.n_order, s.n_order, s.n_depth, sy_array_plan_dropped(plan));
+        sy_array_plan_truncation(plan, db->truncation, sizeof db->truncation);
         snprintf(db->cache_key, sizeof db->cache_key, "%016llx", (unsigned long long)sy_array_plan_key(plan));
     }
     for (size_t first = 0; rc == SY_OK && first < m->n_omega; first += blk_n) {
@@ -187,8 +194,6 @@ static int run_job(const job *j, sy_hydro_db **out, size_t *computed, size_t *ca
         sy_array_hydro_free(res[i]);
     free(res);
     sy_array_plan_free(plan);
-    free(types);
-    free(bodies);
     if (rc != SY_OK) {
         sy_hydro_db_free(db);
         return rc;
