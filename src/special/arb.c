@@ -35,19 +35,44 @@ static void eval(acb_t res, syi_bessel_kind kind, const acb_t nu, const acb_t z,
         break;
     case SYI_BESSEL_H1:
     case SYI_BESSEL_H2: {
-        /* H1,2 = J +- iY (DLMF 10.4.3, 10.4.4). Where the Hankel function is
-         * exponentially smaller than J and Y (|Im z| >> 1 on its decaying side) the sum
-         * cancels; the ball radius shows it and the caller retries at higher
-         * precision. */
-        acb_t y;
-        acb_init(y);
-        acb_hypgeom_bessel_jy(res, y, nu, z, prec);
-        acb_mul_onei(y, y);
-        if (kind == SYI_BESSEL_H1)
-            acb_add(res, res, y, prec);
-        else
-            acb_sub(res, res, y, prec);
-        acb_clear(y);
+        /* Where it holds, H from K (DLMF 10.27.8): H1_nu(z) = (2/(pi i)) e^{-i nu pi/2}
+         * K_nu(-iz) for -pi/2 < arg z <= pi, H2_nu(z) = (2i/pi) e^{i nu pi/2} K_nu(iz)
+         * for -pi < arg z <= pi/2: no cancellation when |Im z| is large. Elsewhere
+         * H = J +- iY (DLMF 10.4.3-4), whose cancellation the ball radius shows (the
+         * caller then retries at higher precision). */
+        int h1 = kind == SYI_BESSEL_H1;
+        int re_pos = arf_sgn(arb_midref(acb_realref(z))) > 0;
+        int im_sgn = arf_sgn(arb_midref(acb_imagref(z)));
+        acb_t t;
+        acb_init(t);
+        if (re_pos || (h1 ? im_sgn > 0 : im_sgn < 0)) {
+            if (h1)
+                acb_div_onei(t, z); /* -iz */
+            else
+                acb_mul_onei(t, z); /* iz */
+            acb_hypgeom_bessel_k(res, nu, t, prec);
+            acb_mul_2exp_si(t, nu, -1); /* nu/2 */
+            if (h1)
+                acb_neg(t, t);
+            acb_exp_pi_i(t, t, prec); /* e^{-+i nu pi/2} */
+            acb_mul(res, res, t, prec);
+            acb_const_pi(t, prec);
+            acb_inv(t, t, prec);
+            acb_mul_2exp_si(t, t, 1); /* 2/pi */
+            acb_mul(res, res, t, prec);
+            if (h1)
+                acb_div_onei(res, res); /* 2/(pi i) = -2i/pi */
+            else
+                acb_mul_onei(res, res);
+        } else {
+            acb_hypgeom_bessel_jy(res, t, nu, z, prec);
+            acb_mul_onei(t, t);
+            if (h1)
+                acb_add(res, res, t, prec);
+            else
+                acb_sub(res, res, t, prec);
+        }
+        acb_clear(t);
         break;
     }
     case SYI_BESSEL_I_SCALED: {

@@ -1,5 +1,5 @@
 /* Real-argument Bessel functions from GSL (integer-order arrays and scalars, J_nu and
- * scaled I_nu of real order). sy_init() switched GSL's aborting handler off, so every
+ * scaled I_nu of real order; bessel.c prefers fast.c for those, see there). sy_init() switched GSL's aborting handler off, so every
  * GSL status is checked here: underflow is accepted (the value is 0 or subnormal, as
  * the interface promises), anything else becomes a status with the arguments named.
  * Negative x for J and I: reflection J_n(-x) = (-1)^n J_n(x), I_n(-x) = (-1)^n I_n(x)
@@ -75,6 +75,18 @@ int syi_special_gsl_array(syi_bessel_kind kind, int nmax, double x, double compl
     case SYI_BESSEL_H2: /* internal to the complex path */
         st = GSL_EINVAL;
         break;
+    }
+    if (st == GSL_EUNDRFLW && (kind == SYI_BESSEL_J || kind == SYI_BESSEL_I_SCALED)) {
+        /* GSL 2.7 Jn_array starts its downward recurrence at nmax; when that seed
+         * underflows it returns zeros for every order (J_0(1e-9) = 0 with nmax = 40).
+         * Take each order from the scalar routine instead (series at such x). */
+        st = GSL_SUCCESS;
+        for (int n = 0; n <= nmax && (st == GSL_SUCCESS || st == GSL_EUNDRFLW); n++) {
+            gsl_sf_result r = {0.0, 0.0};
+            st = kind == SYI_BESSEL_J ? gsl_sf_bessel_Jn_e(n, ax, &r)
+                                      : gsl_sf_bessel_In_scaled_e(n, ax, &r);
+            buf[n] = r.val;
+        }
     }
     int rc = check(st, kind, nmax, x, err);
     for (int n = 0; rc == SY_OK && n <= nmax; n++) {

@@ -53,6 +53,14 @@ int syi_special_fast_array(syi_bessel_kind kind, int nmax, double complex z,
  * 0 <= nu <= 400 at Re z >= 0; SY_OK or SY_CONTINUE as above. */
 int syi_special_fast_nu(syi_bessel_kind kind, double nu, double complex z, double complex *out);
 
+/* J_n or I_n e^{-|Re z|}, n = 0..nmax, for |z| <= SYI_SMALL_ZMAX (real or complex) by
+ * the ascending series; SY_CONTINUE for larger |z| or other kinds. Used below 1e-2
+ * because there GSL's Jn_array (all zeros when its top seed underflows) and
+ * I1_scaled (drops e^{-x} below x ~ 1e-8) are wrong, and the Wronskian pair of the
+ * fast path leaves double range. */
+#define SYI_SMALL_ZMAX 1e-2
+int syi_special_small_array(syi_bessel_kind kind, int nmax, double complex z, double complex *out);
+
 /* GSL, integer orders 0..nmax at real x into out (imaginary parts 0 for J, I, K;
  * H1 = J + iY). x > 0 for Y, H1, K; any x for J, I. */
 int syi_special_gsl_array(syi_bessel_kind kind, int nmax, double x, double complex *out,

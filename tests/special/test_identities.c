@@ -138,12 +138,42 @@ static void at_zero(void)
     sy_check_ok(sy_special_deriv_array(SY_SPECIAL_MODIFIED_I, 3, 0.0, is, d, &err), &err,
                 "I' at 0");
     sy_check_cclose(d[1], 0.5, 0.0, 0.0, "I_1'(0) = 1/2 (DLMF 10.25.2 series)");
+    double complex v = NAN;
+    sy_check_ok(sy_special_besselj_nu(1.0 / 6.0, 0.0, &v, &err), &err, "J_{1/6}(0)");
+    sy_check_cclose(v, 0.0, 0.0, 0.0, "J_{1/6}(0) = 0 (DLMF 10.2.2)");
+    sy_check_ok(sy_special_besseli_nu_scaled(0.0, 0.0, &v, &err), &err, "I_0(0)");
+    sy_check_cclose(v, 1.0, 0.0, 0.0, "I_0(0) = 1 (DLMF 10.25.2)");
     /* underflow: J_30(1e-12) ~ (5e-13)^30 / 30! ~ 1e-402, below the double range */
     double complex big[31];
     sy_check_ok(sy_special_besselj_array(30, 1e-12 + 1e-12 * I, big, &err), &err,
                 "J array 0..30 at 1e-12(1+i) (deep underflow at the top)");
     sy_check_true(big[30] == 0.0 && cabs(big[0] - 1.0) < 1e-15,
                   "J_30 underflows to 0, J_0 ~ 1 (got %g, %g)", cabs(big[30]), cabs(big[0]));
+    /* I_n(iy) = i^n J_n(y) (DLMF 10.27.6); at y = 1e-300: I_0 = 1, I_1 = i y/2, I_2 = 0 */
+    sy_check_ok(sy_special_besseli_scaled_array(20, 1e-300 * I, big, &err), &err,
+                "I array 0..20 at 1e-300i");
+    sy_check_cclose(big[0], 1.0, 1e-15, 0.0, "I_0(1e-300i) = 1");
+    sy_check_cclose(big[1], 0.5e-300 * I, 1e-15, 0.0, "I_1(1e-300i) = 5e-301 i");
+    sy_check_true(big[2] == 0.0, "I_2(1e-300i) underflows to 0");
+    /* Real x = 1e-9 (GSL 2.7 gave all zeros for Jn_array(0, 40, x) and dropped e^{-x}
+     * in I1_scaled): J_0 = 1 - x^2/4, I_1 e^{-x} = (x/2)(1 + x^2/8) e^{-x} (DLMF 10.2.2,
+     * 10.25.2 series, exact to double here). */
+    double x9 = 1e-9;
+    sy_check_ok(sy_special_besselj_array(40, x9, big, &err), &err, "J array 0..40 at 1e-9");
+    sy_check_cclose(big[0], 1.0 - x9 * x9 / 4.0, 1e-16, 0.0, "J_0(1e-9) from the array");
+    sy_check_ok(sy_special_besseli_scaled_array(40, x9, big, &err), &err, "I array at 1e-9");
+    sy_check_cclose(big[1], x9 / 2.0 * (1.0 + x9 * x9 / 8.0) * exp(-x9), 1e-15, 0.0,
+                    "I_1(1e-9) e^{-1e-9} keeps the scale factor");
+    /* GSL 2.7 Jnu(15.0294, 0.43) was off by 7e-9; series value (DLMF 10.2.2) from
+     * mpmath 1.2.1 besselj(15.0294, 0.431162) = 6.788853219733043e-23 */
+    double complex jv;
+    sy_check_ok(sy_special_besselj_nu(15.0294, 0.431162, &jv, &err), &err, "J_15.0294(0.43)");
+    sy_check_cclose(jv, 6.788853219733043e-23, 1e-14, 0.0,
+                    "mpmath 1.2.1 besselj(15.0294, 0.431162)");
+    /* H1 ~ e^{iz}: at 10 + 800i about e^{-800}, below the double range */
+    sy_check_ok(sy_special_hankel1_array(20, 10.0 + 800.0 * I, big, &err), &err,
+                "H1 array at 10 + 800i (deep underflow)");
+    sy_check_true(big[0] == 0.0 && big[20] == 0.0, "H1_0, H1_20 at 10 + 800i underflow to 0");
 }
 
 static void bad_input(void)
