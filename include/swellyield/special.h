@@ -84,21 +84,6 @@ SY_API int sy_special_deriv_array(sy_special_family family, int nmax, double com
                                   const double complex *val, double complex *dval,
                                   sy_error *err);
 
-/* ---- Added by the float body solver (src/special/fast_complex.c), not part of the
- * special module's own interface: fast double-precision evaluations for complex
- * arguments where the Arb path is too slow for per-frequency sums. ---- */
-
-/* K_nu(z) e^{z} for real nu, Re z > 0, |z| >= 0.05, |arg z| <= 1, by the trapezoidal rule
- * on DLMF 10.32.9; relative accuracy ~1e-15. SY_EINVAL outside that range. */
-SY_API int sy_special_besselk_scaled_quad(double nu, double complex z, double complex *out,
-                                          sy_error *err);
-
-/* J_nu(z) for real nu (|nu| <= ~4), |z| >= 25, |arg z| <= pi/4, by Hankel's asymptotic
- * expansion (DLMF 10.17.3); relative accuracy ~1e-15 where J is not near a zero (absolute
- * ~1e-16 sqrt(2/(pi|z|)) e^{|Im z|}). SY_EINVAL outside that range. */
-SY_API int sy_special_besselj_nu_hankel(double nu, double complex z, double complex *out,
-                                        sy_error *err);
-
 #ifdef __cplusplus
 }
 #endif

@@ -24,7 +24,7 @@ static int plan_init_forced(sy_body_plan *plan, size_t P, int P2, size_t Qx, sy_
                         plan->geom.draft, plan->h);
         return rc;   /* plan_free releases the half-built plan */
     }
-    plan->n_roots = fp->Qx[1];
+    plan->n_roots = fp->Qx[fp->nqlev - 1];
     return SY_OK;
 }
 
@@ -89,7 +89,7 @@ static int work_init(sy_body_work *work, const sy_body_plan *plan, sy_error *err
     work->impl = w;
     size_t M1 = fp->M + 1, Q = fp->Q, L = fp->L, n = fp->PG + 1;
     size_t qs = Q > 0 ? Q : 1;
-    w->nq = fp->Qx[1] + 1;
+    w->nq = fp->Qx[fp->nqlev - 1] + 1;   /* capacity; each solve uses its rung */
     w->ncol = Q + 2;
     w->proj = malloc(w->nq * L * sizeof *w->proj);
     w->norm = malloc(w->nq * sizeof *w->norm);

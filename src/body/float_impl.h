@@ -27,6 +27,7 @@
 #define SYI_FLOAT_NU2 (5.0 / 6.0)  /* second family: weight (1 - t^2)^(+1/3) */
 #define SYI_FLOAT_PMAX 24          /* largest number of gap functions a plan may use */
 #define SYI_FLOAT_LEVELS 2         /* truncation levels solved per frequency: 0 coarse, 1 fine */
+#define SYI_FLOAT_QLEV 5           /* ladder of exterior truncations Qx[0] * 2^i */
 
 typedef struct syi_float_plan {
     double a, d, h, b, z_rot;
@@ -37,7 +38,11 @@ typedef struct syi_float_plan {
     double nu_l[SYI_FLOAT_PMAX];   /* family order of gap function l */
     int ord_l[SYI_FLOAT_PMAX];     /* p of gap function l within its family */
     size_t nfam[2];                /* functions per family */
-    size_t Qx[SYI_FLOAT_LEVELS];   /* exterior evanescent modes summed per level */
+    size_t Qx[SYI_FLOAT_QLEV];     /* ladder of exterior mode counts; per frequency the fine
+                                    * level is the first i >= 1 with 2 b |K| / (pi Qx[i]) <=
+                                    * q_ratio (or the last), the coarse level is i - 1 */
+    size_t nqlev;                  /* rungs in the ladder */
+    double q_ratio;
     size_t L;                      /* PG + 2: basis size for orders m <= 1 (walls PG, PG+1) */
     double m0[SYI_FLOAT_PMAX];     /* int_0^1 f_p dt */
     double m2[SYI_FLOAT_PMAX];     /* int_0^1 t^2 f_p dt */
@@ -53,14 +58,15 @@ typedef struct syi_float_plan {
     double bpp_heave, bpp_pitch;   /* int_0^a phi_p(r, -d) W r dr */
     double bw0_heave;              /* int_0^a W r dr for the m = 0 constant interior mode */
     double p0_heave;               /* m = 0 flux constraint: int_gap d_r phi_p dz = -a/2 */
-    /* Exterior tails beyond Qx[lev], from the reference wavenumbers q pi / h:
+    /* Exterior tails beyond Qx[i], from the reference wavenumbers q pi / h:
      * sum_{q > Qx} E(k_q) = rtail + K t1 + K^2 t2 + O(K^3), K = omega^2 / g.
-     * Each (M+1) L L per level, row-major [m][l][l']. */
-    double *rtail[SYI_FLOAT_LEVELS], *t1[SYI_FLOAT_LEVELS], *t2[SYI_FLOAT_LEVELS];
+     * Each (M+1) L L per rung, row-major [m][l][l']. */
+    double *rtail[SYI_FLOAT_QLEV], *t1[SYI_FLOAT_QLEV], *t2[SYI_FLOAT_QLEV];
 } syi_float_plan;
 
 typedef struct syi_float_work {
-    size_t nq;                     /* Qx[1] + 1 exterior modes q = 0..Qx[1] */
+    size_t nq;                     /* exterior modes q = 0..nq-1 of this frequency */
+    size_t qf, qc;                 /* fine and coarse rungs of this frequency */
     double complex *proj;          /* nq L: int Z_q f_l dz (gap and wall) */
     double complex *norm;          /* nq: int_{-h}^0 Z_q^2 dz */
     double complex *kap;           /* nq (M+1): Hhat_q / Hhat_q' at r = a */

@@ -53,16 +53,9 @@ static int family_cos(double nu, size_t n, double b, double complex x, double co
         /* Upward recurrence J_{mu+1} = (2 mu / x) J_mu - J_{mu-1} is stable for mu < |x|
          * (DLMF 10.6.1); only orders nu and nu + 1 are evaluated. */
         double complex jm, jp;
-        if (cimag(x) != 0.0 && cabs(x) >= 25.0 && creal(x) > fabs(cimag(x))) {
-            /* complex omega: Hankel's expansion, far cheaper than the Arb path */
-            rc = sy_special_besselj_nu_hankel(nu, x, &jm, err);
-            if (rc == SY_OK)
-                rc = sy_special_besselj_nu_hankel(nu + 1.0, x, &jp, err);
-        } else {
-            rc = sy_special_besselj_nu(nu, x, &jm, err);
-            if (rc == SY_OK)
-                rc = sy_special_besselj_nu(nu + 1.0, x, &jp, err);
-        }
+        rc = sy_special_besselj_nu(nu, x, &jm, err);
+        if (rc == SY_OK)
+            rc = sy_special_besselj_nu(nu + 1.0, x, &jp, err);
         if (rc != SY_OK)
             return rc;
         double mu = nu + 1.0;
@@ -353,7 +346,8 @@ static int exterior_reference(syi_float_plan *fp, sy_error *err)
     if (buf == NULL)
         return sy_error_set(err, SY_ENOMEM, "float plan reference sums");
     double *tot = buf, *e0 = buf + n, *ep = buf + 2 * n, *em = buf + 3 * n, *part = buf + 4 * n;
-    for (int lev = 0; lev < SYI_FLOAT_LEVELS; lev++) {
+    const int nl = (int)fp->nqlev;
+    for (int lev = 0; lev < nl; lev++) {
         memset(fp->t1[lev], 0, n * sizeof(double));
         memset(fp->t2[lev], 0, n * sizeof(double));
     }
@@ -367,7 +361,7 @@ static int exterior_reference(syi_float_plan *fp, sy_error *err)
             break;
         for (size_t i = 0; i < n; i++)
             tot[i] += e0[i];
-        for (int lev = 0; lev < SYI_FLOAT_LEVELS; lev++)
+        for (int lev = 0; lev < nl; lev++)
             if (q == fp->Qx[lev])
                 memcpy(fp->rtail[lev], tot, n * sizeof(double)); /* partial sums */
         if (q <= fp->Qx[0])
@@ -382,7 +376,7 @@ static int exterior_reference(syi_float_plan *fp, sy_error *err)
             double d2 = (ep[i] - 2.0 * e0[i] + em[i]) / (dk * dk);
             double c1 = -d1 / qpi;
             double c2 = d2 / (2.0 * qpi * qpi) - d1 * h / (qpi * qpi * qpi);
-            for (int lev = 0; lev < SYI_FLOAT_LEVELS; lev++)
+            for (int lev = 0; lev < nl; lev++)
                 if (q > fp->Qx[lev]) {
                     fp->t1[lev][i] += c1;
                     fp->t2[lev][i] += c2;
@@ -401,7 +395,7 @@ static int exterior_reference(syi_float_plan *fp, sy_error *err)
                     part[i] = c * pow(h / SYI_PI, s) * em_tail(s, Q_REF);
                 }
         }
-        for (int lev = 0; lev < SYI_FLOAT_LEVELS; lev++)
+        for (int lev = 0; lev < nl; lev++)
             for (size_t i = 0; i < n; i++)
                 fp->rtail[lev][i] = tot[i] + part[i] - fp->rtail[lev][i];
     }
@@ -428,6 +422,11 @@ int syi_float_plan_build(syi_float_plan *fp, const sy_body_plan *plan, size_t P_
      * asked for and the error estimate watches the high-frequency end. */
     double digits = -log10(plan->tolerance > 0.0 ? plan->tolerance : 1e-6);
     size_t P1 = digits <= 4.0 ? 4 : digits <= 7.0 ? 5 : digits <= 10.0 ? 7 : 8;
+    /* a long gap under a shallow draft resolves the corner layer with more functions
+     * (measured: d/h = 0.04 needs about three more than d/h = 0.2 for the same error) */
+    double gap_ratio = (plan->h - plan->geom.draft) / (4.0 * plan->geom.draft);
+    if (gap_ratio > 1.0)
+        P1 += (size_t)fmin(6.0, ceil(log2(gap_ratio)));
     size_t Q1 = (size_t)ceil(8.0 * digits);
     if (Q1 < 16)
         Q1 = 16;
@@ -460,8 +459,16 @@ int syi_float_plan_build(syi_float_plan *fp, const sy_body_plan *plan, size_t P_
         if (l + 1 < P1 || l >= P1)
             fp->gidx[0][fp->P[0]++] = l;
     }
-    fp->Qx[1] = Q1;
+    /* exterior ladder: Q1/2, Q1, 2 Q1, 4 Q1, 8 Q1 (fine level chosen per frequency) */
+    fp->nqlev = SYI_FLOAT_QLEV;
     fp->Qx[0] = Q1 / 2;
+    for (size_t i = 1; i < fp->nqlev; i++)
+        fp->Qx[i] = Q1 << (i - 1);
+    if (Qx_force > 0)
+        fp->nqlev = 2;   /* forced: exactly Q1 (fine) and Q1/2 (coarse) */
+    /* measured (docs/hydro-convergence.md): the exterior error behaves like
+     * (2 b |K| / (pi Qx))^5, about 1e-7 at a ratio of 0.17 */
+    fp->q_ratio = 0.17 * pow(pow(10.0, -digits) / 1e-7, 0.2);
     fp->L = fp->PG + 2;
     P1 = fp->PG;   /* below: loops over all gap functions */
     for (size_t p = 0; p < P1; p++) {
@@ -494,7 +501,7 @@ int syi_float_plan_build(syi_float_plan *fp, const sy_body_plan *plan, size_t P_
     size_t n = (fp->M + 1) * fp->L * fp->L;
     fp->sint = calloc(n, sizeof *fp->sint);
     int ok = fp->sint != NULL;
-    for (int lev = 0; lev < SYI_FLOAT_LEVELS; lev++) {
+    for (size_t lev = 0; lev < fp->nqlev; lev++) {
         fp->rtail[lev] = calloc(n, sizeof(double));
         fp->t1[lev] = calloc(n, sizeof(double));
         fp->t2[lev] = calloc(n, sizeof(double));
@@ -515,7 +522,7 @@ void syi_float_plan_release(syi_float_plan *fp)
     if (fp == NULL)
         return;
     free(fp->sint);
-    for (int lev = 0; lev < SYI_FLOAT_LEVELS; lev++) {
+    for (int lev = 0; lev < SYI_FLOAT_QLEV; lev++) {
         free(fp->rtail[lev]);
         free(fp->t1[lev]);
         free(fp->t2[lev]);

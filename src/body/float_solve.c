@@ -53,12 +53,15 @@ static int modes(const syi_float_plan *fp, const sy_wave_roots *roots, syi_float
             double complex k = roots->k0, x = k * b;
             double complex e2 = cexp(-2.0 * k * h), ed = cexp(-k * d), eh = cexp(-k * (h + b));
             double complex den = 1.0 + e2;
+            /* special.h scales I by e^{-|Re x|}, not analytic in x; times e^{-i Im x} it
+             * becomes I e^{-x}, which is */
+            double complex unscale = cexp(-I * cimag(x));
             for (size_t p = 0; p < P && rc == SY_OK; p++) {
                 double complex iv;
                 double nl = fp->nu_l[p];
                 rc = sy_special_besseli_nu_scaled(nl + 2.0 * fp->ord_l[p], x, &iv, err);
                 /* I e^{-x} * e^{x} / cosh(k h) = I_scaled 2 e^{-k d} / (1 + e^{-2kh}) */
-                g[p] = b * cpow(x, -nl) * iv * 2.0 * ed / den;
+                g[p] = b * cpow(x, -nl) * iv * unscale * 2.0 * ed / den;
             }
             if (rc != SY_OK)
                 break;
@@ -100,18 +103,7 @@ static int modes(const syi_float_plan *fp, const sy_wave_roots *roots, syi_float
                 g[l] /= c;
             w->norm[q] = (h / 2.0 + csin(2.0 * k * h) / (4.0 * k)) / (c * c);
             double complex x2 = k * a;
-            if (cimag(x2) != 0.0 && fabs(carg(x2)) < 0.5) {
-                /* complex omega: K_0, K_1 by quadrature (special.h, fast_complex.c), then
-                 * the upward recurrence K_{n+1} = K_{n-1} + (2n/x) K_n (DLMF 10.29.1),
-                 * stable for K in Re x > 0 */
-                rc = sy_special_besselk_scaled_quad(0.0, x2, &v[0], err);
-                if (rc == SY_OK)
-                    rc = sy_special_besselk_scaled_quad(1.0, x2, &v[1], err);
-                for (size_t n = 1; n <= M; n++)
-                    v[n + 1] = v[n - 1] + 2.0 * (double)n / x2 * v[n];
-            } else {
-                rc = sy_special_besselk_scaled_array((int)M + 1, x2, v, err);
-            }
+            rc = sy_special_besselk_scaled_array((int)M + 1, x2, v, err);
             if (rc != SY_OK)
                 break;
             for (size_t m = 0; m <= M; m++)
@@ -128,10 +120,12 @@ static int modes(const syi_float_plan *fp, const sy_wave_roots *roots, syi_float
                 rc = sy_special_besseli_scaled_array((int)M + 1, x2, v, err);
                 if (rc != SY_OK)
                     break;
-                /* special scales I by e^{-|Re x|}; Re x > 0 here */
+                /* special scales I by e^{-|Re x|} (Re x > 0): times e^{-i Im x} gives the
+                 * analytic I e^{-x}, so I = v e^{-i Im x} e^{x} */
+                double complex unscale = cexp(-I * cimag(x2));
                 for (size_t m = 0; m <= M; m++) {
                     double complex id = (m == 0) ? v[1] : v[m - 1] - (double)m / x2 * v[m];
-                    w->ip_hp[m * Q + q] = id / dv[m] * ex * ex;
+                    w->ip_hp[m * Q + q] = id * unscale / dv[m] * ex * ex;
                 }
             }
         }
@@ -139,7 +133,7 @@ static int modes(const syi_float_plan *fp, const sy_wave_roots *roots, syi_float
     return rc;
 }
 
-/* Exterior Gram sums per level: direct sum to Qx[lev] plus the reference tail. */
+/* Exterior Gram sums per level: direct sum to Qx[rung] plus the reference tail. */
 static void gram(const syi_float_plan *fp, double complex K, syi_float_work *w)
 {
     const size_t L = fp->L, M = fp->M, P = fp->PG;
@@ -159,16 +153,17 @@ static void gram(const syi_float_plan *fp, double complex K, syi_float_work *w)
                     e[l * L + lp] += cl * g[lp];
             }
         }
-        if (q == fp->Qx[0])
+        if (q == fp->Qx[w->qc])
             memcpy(coarse, fine, n * sizeof *fine);
     }
     for (int lev = 0; lev < SYI_FLOAT_LEVELS; lev++) {
         double complex *e = w->ext + lev * n;
+        size_t r = lev ? w->qf : w->qc;
         for (size_t m = 0; m <= M; m++)
             for (size_t l = 0; l < L; l++)
                 for (size_t lp = l; lp < L; lp++) {
                     size_t i = (m * L + l) * L + lp;
-                    e[i] += fp->rtail[lev][i] + K * (fp->t1[lev][i] + K * fp->t2[lev][i]);
+                    e[i] += fp->rtail[r][i] + K * (fp->t1[r][i] + K * fp->t2[r][i]);
                     e[(m * L + lp) * L + l] = e[i];
                 }
     }
@@ -329,6 +324,14 @@ int syi_float_solve(const sy_body_plan *plan, const sy_wave_roots *roots, double
     const size_t Q = fp->Q, Mo = plan->n_order, nn = 2 * Mo + 1, L = fp->L;
     const double complex omega = roots->omega;
     const double complex K = omega * omega / roots->g;
+    /* exterior rung for this frequency (float_impl.h) */
+    size_t f = 1;
+    double need = 2.0 * fp->b * cabs(K) / SYI_PI;   /* modulus: a truncation choice only */
+    while (f + 1 < fp->nqlev && need / (double)fp->Qx[f] > fp->q_ratio)
+        f++;
+    w->qf = f;
+    w->qc = f - 1;
+    w->nq = fp->Qx[f] + 1;
     int rc = modes(fp, roots, w, err);
     if (rc != SY_OK) {
         sy_error_prefix(err, "float at omega = %g%+gi rad/s", creal(omega), cimag(omega));

@@ -235,18 +235,25 @@ class Float:
         return X
 
 
+def quantities(a, d, h, z_rot, omega, nq):
+    f = Float(a, d, h, z_rot=z_rot, nq=nq)
+    r = f.radiation(omega)
+    X = f.excitation(omega)
+    A, B = r['A'], r['B']
+    return {'A11': A[0, 0], 'A15': A[0, 4], 'A55': A[4, 4], 'A33': A[2, 2],
+            'B11': B[0, 0], 'B15': B[0, 4], 'B55': B[4, 4], 'B33': B[2, 2],
+            'X1': abs(X[0]), 'X3': abs(X[2]), 'X5': abs(X[4])}
+
+
 if __name__ == "__main__":
+    # usage: float_oracle.py a d h z_rot omega nq
+    # prints "name extrapolated change" per quantity: values at nq and 2 nq exterior modes,
+    # Richardson-extrapolated with the observed O(nq^-2) rate, and |v(2nq) - v(nq)|.
     import sys
-    a, d, h = 5.0, 4.0, 20.0
-    for nq in (100, 200, 400):
-        f = Float(a, d, h, nq=nq)
-        om = 0.9
-        r = f.radiation(om)
-        X = f.excitation(om)
-        k0 = f.k0
-        cg = om / k0 / 2 * (1 + 2 * k0 * h / np.sinh(2 * k0 * h))
-        B33h = k0 * abs(X[2]) ** 2 / (4 * f.rho * f.g * cg)
-        B11h = k0 * abs(X[0]) ** 2 / (8 * f.rho * f.g * cg)
-        B55h = k0 * abs(X[4]) ** 2 / (8 * f.rho * f.g * cg)
-        print(nq, r['A'][2, 2], r['B'][2, 2], B33h, r['A'][0, 0], r['B'][0, 0], B11h,
-              r['A'][0, 4], r['A'][4, 0], r['A'][4, 4], r['B'][4, 4], B55h)
+    a, d, h, zr, om = (float(v) for v in sys.argv[1:6])
+    nq = int(sys.argv[6]) if len(sys.argv) > 6 else 200
+    v1 = quantities(a, d, h, zr, om, nq)
+    v2 = quantities(a, d, h, zr, om, 2 * nq)
+    for key in v1:
+        ext = v2[key] + (v2[key] - v1[key]) / 3.0
+        print(key, repr(float(ext)), repr(float(abs(v2[key] - v1[key]))))

@@ -24,7 +24,7 @@ typedef struct {
     double h, g, rho;
 } tl_float;
 
-static int tl_float_open(tl_float *t, double a, double d, double h, double z_rot, double tol,
+static inline int tl_float_open(tl_float *t, double a, double d, double h, double z_rot, double tol,
                          size_t M, size_t Q, sy_error *err)
 {
     sy_body_geometry geo = {SY_BODY_FLOAT, a, d, z_rot};
@@ -48,7 +48,7 @@ static int tl_float_open(tl_float *t, double a, double d, double h, double z_rot
     return rc;
 }
 
-static void tl_float_close(tl_float *t)
+static inline void tl_float_close(tl_float *t)
 {
     sy_body_waves_free(t->out);
     sy_body_work_free(t->work);
@@ -56,7 +56,7 @@ static void tl_float_close(tl_float *t)
     free(t->roots.k);
 }
 
-static int tl_float_solve(tl_float *t, double complex omega, sy_error *err)
+static inline int tl_float_solve(tl_float *t, double complex omega, sy_error *err)
 {
     int rc = sy_waves_roots_fill(&t->roots, omega, t->h, t->g,
                                  sy_body_plan_roots_needed(t->plan), err);
@@ -66,7 +66,7 @@ static int tl_float_solve(tl_float *t, double complex omega, sy_error *err)
 }
 
 /* X_j(beta) per unit amplitude, j = 0..4, from G_j(0, n). */
-static void tl_excitation(const sy_body_waves *w, double complex omega, double g, double beta,
+static inline void tl_excitation(const sy_body_waves *w, double complex omega, double g, double beta,
                           double complex X[5])
 {
     size_t M = w->n_order, Q = w->n_depth, nn = 2 * M + 1;
@@ -82,7 +82,7 @@ static void tl_excitation(const sy_body_waves *w, double complex omega, double g
 }
 
 /* Impedance B - i omega A (the analytic quantity at complex omega). */
-static double complex tl_impedance(const sy_body_waves *w, int i, int j)
+static inline double complex tl_impedance(const sy_body_waves *w, int i, int j)
 {
     return w->damping[i * 5 + j] - I * w->omega * w->added_mass[i * 5 + j];
 }
