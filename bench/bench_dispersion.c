@@ -22,8 +22,9 @@ int main(void)
             sum += creal(r.k0) + creal(k[N_EV - 1]);
         }
         double dt = bench_now() - t0;
-        printf("bench_dispersion: %s omega, h = 25 m: %.3f us per root (%d frequencies x %d roots)\n",
-               pass ? "complex" : "real", 1e6 * dt / (N_OMEGA * (N_EV + 1)), N_OMEGA, N_EV + 1);
+        printf(
+            "bench_dispersion: %s omega, h = 25 m: %.3f us per root (%d frequencies x %d roots)\n",
+            pass ? "complex" : "real", 1e6 * dt / (N_OMEGA * (N_EV + 1)), N_OMEGA, N_EV + 1);
     }
     return sum > 0 ? 0 : 1;
 }

@@ -20,7 +20,8 @@ int main(void)
             return 1;
         sink += s.tp;
     }
-    printf("bench_sea: JONSWAP init (gamma given, Te): %.1f us\n", 1e6 * (bench_now() - t0) / N_INIT);
+    printf("bench_sea: JONSWAP init (gamma given, Te): %.1f us\n",
+           1e6 * (bench_now() - t0) / N_INIT);
     t0 = bench_now();
     for (int i = 0; i < 20; i++) {
         sy_sea_spectrum_spec sp = {.kind = SY_SEA_JONSWAP, .hs = 2 + 0.1 * i, .te = 7.5};
@@ -28,7 +29,8 @@ int main(void)
             return 1;
         sink += s.gamma;
     }
-    printf("bench_sea: JONSWAP init (DNV gamma rule, Te): %.1f us\n", 1e6 * (bench_now() - t0) / 20);
+    printf("bench_sea: JONSWAP init (DNV gamma rule, Te): %.1f us\n",
+           1e6 * (bench_now() - t0) / 20);
     t0 = bench_now();
     for (int i = 0; i < N_EVAL; i++)
         sink += sy_sea_spectrum_eval(&s, 0.2 + 2e-6 * i);
@@ -52,6 +54,7 @@ int main(void)
             return 1;
         sink += D[3];
     }
-    printf("bench_sea: spreading init + weights, 36 headings: %.1f us\n", 1e6 * (bench_now() - t0) / N_SPREAD);
+    printf("bench_sea: spreading init + weights, 36 headings: %.1f us\n",
+           1e6 * (bench_now() - t0) / N_SPREAD);
     return sink > 0 ? 0 : 1;
 }

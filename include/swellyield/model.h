@@ -25,7 +25,9 @@
  *               direction bins; default: waves travel toward the array's +x axis)
  *   [solve]     omega = min:max:count | comma list (rad/s), headings = min:max:count |
  *               comma list (deg, direction waves travel toward, counter-clockwise from +x),
- *               tolerance (relative, default 1e-6)
+ *               tolerance (relative, default 1e-6), orders and depth_modes (the array's
+ *               angular orders M and depth modes Q; 0 or absent: chosen from the
+ *               tolerance, see hydro.h), max_bodies, max_frequencies (resource bounds)
  *   [resonance] region = re_min:re_max:im_depth (rad/s), q_threshold (default 5)
  * Errors read "FILE:LINE: message" (or "FILE: message" when no line applies).
  *
@@ -108,6 +110,7 @@ typedef struct sy_model {
     double *headings;                      /* rad, toward, counter-clockwise from +x */
     size_t n_headings;
     double tolerance;
+    size_t orders, depth_modes;            /* 0: automatic */
     size_t max_bodies, max_omega;          /* resource bounds in force */
     /* [resonance] */
     int has_resonance;

@@ -19,10 +19,11 @@
  *
  * Value types: sy_sea_spectrum and sy_sea_spreading are small plain structs (no owned
  * memory; copy freely), filled and validated once by their _init function and then only
- * read. Unlike the opaque plan objects elsewhere they are public so that callers can
- * keep them in arrays and report their fields. All functions are pure and thread-safe;
- * the _init functions and the quadrature-based functions allocate a GSL integration
- * workspace internally (SY_ENOMEM if that fails), the _eval functions never allocate.
+ * read (plain data, public like sy_model: callers keep them in arrays and report their
+ * fields). All functions are pure and thread-safe; the quadrature-based ones
+ * (sy_sea_spectrum_init for JONSWAP, _cdf, _cells, _power, _directionality) allocate a
+ * GSL integration workspace per call (SY_ENOMEM if that fails); the _eval functions and
+ * the weights never allocate.
  *
  * Status codes: SY_OK; SY_EINPUT for a bad sea-state value (message names the variable,
  * the value and the accepted range); SY_EINVAL for a bad argument from the program
@@ -44,6 +45,7 @@ typedef enum sy_sea_kind {
     /* Pierson-Moskowitz shape in Hs and Tp, a.k.a. two-parameter Bretschneider:
      * S = (5/16) Hs^2 wp^4 w^-5 exp(-(5/4)(w/wp)^-4)   (references.md 2.1) */
     SY_SEA_PM = 1,
+    SY_SEA_BRETSCHNEIDER = SY_SEA_PM, /* the same shape (project files say "bretschneider") */
     /* JONSWAP, DNV-RP-C205 form: A S_PM(w) gamma^exp(-(w - wp)^2 / (2 sigma^2 wp^2)),
      * sigma = 0.07 (w <= wp), 0.09 (w > wp)   (references.md 2.3) */
     SY_SEA_JONSWAP = 2
@@ -60,11 +62,15 @@ typedef enum sy_sea_norm {
 /* What the caller knows about a sea state. Give Hs and exactly one of tp, te, tz (> 0,
  * the others 0). gamma: JONSWAP peak enhancement 1 <= gamma <= 20, or 0 to use the DNV
  * rule sy_sea_gamma_dnv (solved consistently when te or tz is given); must be 0 or 1
- * for SY_SEA_PM. norm is ignored for PM (A = 1 is exact there). */
+ * for SY_SEA_PM. norm is ignored for PM (A = 1 is exact there).
+ * A zeroed spec's norm is SY_SEA_NORM_DNV (the standard's form). For climate-driven
+ * yields, where the table's Hs is the spectral Hm0 = 4 sqrt(m0), SY_SEA_NORM_EXACT keeps
+ * the spectrum's energy equal to the bin's: J ~ Hm0^2, and the DNV factor alone moves
+ * J by +0.24 % at gamma 3.3 and -1.8 % at gamma 7. */
 typedef struct sy_sea_spectrum_spec {
     sy_sea_kind kind;
-    double hs;          /* significant wave height the spectrum is built from, m */
-    double tp, te, tz;  /* peak, energy (m_-1/m_0) or zero-crossing period, s */
+    double hs; /* significant wave height the spectrum is built from, m */
+    double tp, te, tz; /* peak, energy (m_-1/m_0) or zero-crossing period, s */
     double gamma;
     sy_sea_norm norm;
 } sy_sea_spectrum_spec;
@@ -72,20 +78,20 @@ typedef struct sy_sea_spectrum_spec {
 /* A validated spectrum, filled by sy_sea_spectrum_init; read-only afterwards. */
 typedef struct sy_sea_spectrum {
     sy_sea_kind kind;
-    sy_sea_norm norm;       /* normalisation actually used (DNV or EXACT; EXACT for PM) */
-    int gamma_from_rule;    /* 1 if gamma came from the DNV rule */
-    double hs;              /* Hs as given, m */
-    double gamma;           /* 1 for PM */
-    double alpha;           /* normalising factor A actually applied (1 for PM) */
-    double tp, omega_p;     /* s, rad/s */
+    sy_sea_norm norm; /* normalisation actually used (DNV or EXACT; EXACT for PM) */
+    int gamma_from_rule; /* 1 if gamma came from the DNV rule */
+    double hs; /* Hs as given, m */
+    double gamma; /* 1 for PM */
+    double alpha; /* normalising factor A actually applied (1 for PM) */
+    double tp, omega_p; /* s, rad/s */
     /* Spectral parameters of the spectrum as built (from the shape's moments, exact
      * for PM, adaptive quadrature to ~1e-12 for JONSWAP): */
-    double hm0;             /* 4 sqrt(m0), m (= hs except with the DNV normalisation) */
-    double te, tz, t1;      /* energy, zero-crossing, mean period, s */
-    double eps0;            /* spectral width sqrt(m0 m_-2 / m_-1^2 - 1) */
-    double mu[5];           /* shape moments int u^n s(u) du, n = -2..2 (mu[n + 2]),
+    double hm0; /* 4 sqrt(m0), m (= hs except with the DNV normalisation) */
+    double te, tz, t1; /* energy, zero-crossing, mean period, s */
+    double eps0; /* spectral width sqrt(m0 m_-2 / m_-1^2 - 1) */
+    double mu[5]; /* shape moments int u^n s(u) du, n = -2..2 (mu[n + 2]),
                                u = omega/omega_p, s(u) = u^-5 e^{-5/4 u^-4} gamma^r(u) */
-    double scale;           /* A (5/16) Hs^2 / omega_p, m^2 s/rad: S = scale s(u) */
+    double scale; /* A (5/16) Hs^2 / omega_p, m^2 s/rad: S = scale s(u) */
 } sy_sea_spectrum;
 
 /* Validate spec and fill *out. For JONSWAP this integrates the shape's moments once
@@ -104,8 +110,7 @@ SY_API double sy_sea_spectrum_eval_hz(const sy_sea_spectrum *s, double f);
 
 /* Fraction of m0 below omega: int_0^omega S / m0 (closed form for PM, quadrature for
  * JONSWAP). Used for cell energies and grid coverage. */
-SY_API int sy_sea_spectrum_cdf(const sy_sea_spectrum *s, double omega, double *frac,
-                               sy_error *err);
+SY_API int sy_sea_spectrum_cdf(const sy_sea_spectrum *s, double omega, double *frac, sy_error *err);
 
 /* DNV gamma rule (DNV-RP-C205, from memory, unverified; references.md 2.3), Tp in s,
  * Hs in m: 5 for Tp/sqrt(Hs) <= 3.6, exp(5.75 - 1.15 Tp/sqrt(Hs)) up to 5, 1 beyond. */
@@ -119,14 +124,14 @@ SY_API int sy_sea_spectrum_describe(const sy_sea_spectrum *s, char *buf, size_t 
 /* ---- Moments and periods ------------------------------------------------------------ */
 
 typedef struct sy_sea_moments {
-    double m[5];    /* angular-frequency moments m_n = int omega^n S(omega) domega,
+    double m[5]; /* angular-frequency moments m_n = int omega^n S(omega) domega,
                        n = -2..2 at m[n + 2], in m^2 (rad/s)^n */
-    double mf[5];   /* frequency moments m_n = int f^n S(f) df = (2 pi)^-n m[n + 2], m^2 Hz^n */
-    double hm0;     /* 4 sqrt(m0), m */
-    double te;      /* energy period m_-1 / m_0 (frequency moments), s */
-    double t1;      /* mean period m_0 / m_1, s */
-    double tz;      /* zero-crossing period sqrt(m_0 / m_2), s */
-    double eps0;    /* spectral width sqrt(m_0 m_-2 / m_-1^2 - 1) (references.md 2.2) */
+    double mf[5]; /* frequency moments m_n = int f^n S(f) df = (2 pi)^-n m[n + 2], m^2 Hz^n */
+    double hm0; /* 4 sqrt(m0), m */
+    double te; /* energy period m_-1 / m_0 (frequency moments), s */
+    double t1; /* mean period m_0 / m_1, s */
+    double tz; /* zero-crossing period sqrt(m_0 / m_2), s */
+    double eps0; /* spectral width sqrt(m_0 m_-2 / m_-1^2 - 1) (references.md 2.2) */
 } sy_sea_moments;
 
 /* Moments of a parametric spectrum (from its shape moments; no quadrature). */
@@ -154,8 +159,8 @@ SY_API int sy_sea_omega_weights(const double *omega, size_t n, double *dOmega, d
 /* Exact energy of spectrum s in each cell of sy_sea_omega_weights: E[i] = int_cell S
  * (m^2), and the fraction of m0 outside all cells (*outside, may be NULL). E may be NULL
  * to get the fraction alone. */
-SY_API int sy_sea_spectrum_cells(const sy_sea_spectrum *s, const double *omega, size_t n,
-                                 double *E, double *outside, sy_error *err);
+SY_API int sy_sea_spectrum_cells(const sy_sea_spectrum *s, const double *omega, size_t n, double *E,
+                                 double *outside, sy_error *err);
 
 /* ---- Wave power per metre of crest -------------------------------------------------- */
 
@@ -164,8 +169,8 @@ SY_API int sy_sea_spectrum_cells(const sy_sea_spectrum *s, const double *omega, 
 SY_API double sy_sea_power_deep(double rho, double g, double hm0, double te);
 
 /* Regular wave of amplitude a (m): J = rho g a^2 cg / 2 at depth h (INFINITY = deep). */
-SY_API int sy_sea_power_regular(double rho, double g, double a, double omega, double h,
-                                double *J, sy_error *err);
+SY_API int sy_sea_power_regular(double rho, double g, double a, double omega, double h, double *J,
+                                sy_error *err);
 
 /* J = rho g int S(omega) cg(omega, h) domega (W/m) by adaptive quadrature, depth h
  * (INFINITY = deep water); relative accuracy ~1e-10. */
@@ -180,8 +185,8 @@ SY_API int sy_sea_power_sampled(const double *omega, const double *S, size_t n, 
 /* Directionally resolved power J_theta = J sum_j D_j cos(theta - beta_j) [cos >= 0]
  * (IEC TS 62600-101 form, from memory, unverified; references.md 5.3) for a
  * frequency-independent spread discretised as D[j] at headings beta[j] (rad). */
-SY_API double sy_sea_power_directional(double J, const double *beta, const double *D,
-                                       size_t n, double theta);
+SY_API double sy_sea_power_directional(double J, const double *beta, const double *D, size_t n,
+                                       double theta);
 
 /* ---- Directional spreading ---------------------------------------------------------- */
 
@@ -190,12 +195,12 @@ SY_API double sy_sea_power_directional(double J, const double *beta, const doubl
  * 3), per radian, integrating to 1 over the circle. s = 0 is a sentinel meaning
  * LONG-CRESTED (all energy at theta0), not the isotropic s -> 0 limit of the formula. */
 typedef struct sy_sea_spreading {
-    double s;           /* spreading exponent, 0 = long-crested */
-    double theta0;      /* mean direction (toward), rad, as given */
-    double norm;        /* G(s), 1/rad (0 when long-crested) */
+    double s; /* spreading exponent, 0 = long-crested */
+    double theta0; /* mean direction (toward), rad, as given */
+    double norm; /* G(s), 1/rad (0 when long-crested) */
 } sy_sea_spreading;
 
-#define SY_SEA_SPREAD_S_MAX 1000.0  /* beyond this the spread is < 2.6 deg: use s = 0 */
+#define SY_SEA_SPREAD_S_MAX 1000.0 /* beyond this the spread is < 2.6 deg: use s = 0 */
 
 /* Validate (0 <= s <= SY_SEA_SPREAD_S_MAX, theta0 finite) and fill. SY_EINPUT. */
 SY_API int sy_sea_spreading_init(sy_sea_spreading *d, double s, double theta0, sy_error *err);
@@ -222,8 +227,7 @@ SY_API double sy_sea_spreading_sigma(const sy_sea_spreading *d);
 /* Directionality coefficient d = J_theta(theta0) / J = int_{-pi/2}^{pi/2} D(theta0 + u)
  * cos u du for a frequency-independent unimodal spread (references.md 3 and 5.3), by
  * adaptive quadrature; 1 when long-crested. */
-SY_API int sy_sea_spreading_directionality(const sy_sea_spreading *d, double *coef,
-                                           sy_error *err);
+SY_API int sy_sea_spreading_directionality(const sy_sea_spreading *d, double *coef, sy_error *err);
 
 #ifdef __cplusplus
 }

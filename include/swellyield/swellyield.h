@@ -13,4 +13,5 @@
 #include "swellyield/dynamics.h"
 #include "swellyield/yield.h"
 #include "swellyield/outputs.h"
+#include "swellyield/hydro.h"
 #endif

@@ -27,11 +27,11 @@ SY_API double sy_waves_group_velocity(double omega, double k, double h);
  * Real omega: k0 real > 0, k[m-1] = k_m real with k_m h in ((m - 1/2) pi, m pi).
  * Complex omega: the same roots continued analytically (k0 -> k0(omega), ...). */
 typedef struct sy_wave_roots {
-    double complex omega;   /* rad/s */
-    double h, g;            /* m, m/s^2 */
-    double complex k0;      /* propagating root, rad/m */
-    size_t n_evanescent;    /* number of evanescent roots filled (<= capacity) */
-    double complex *k;      /* k[m-1] = k_m, m = 1..n_evanescent, rad/m */
+    double complex omega; /* rad/s */
+    double h, g; /* m, m/s^2 */
+    double complex k0; /* propagating root, rad/m */
+    size_t n_evanescent; /* number of evanescent roots filled (<= capacity) */
+    double complex *k; /* k[m-1] = k_m, m = 1..n_evanescent, rad/m */
 } sy_wave_roots;
 
 /* Fill r with the propagating root and the first n_evanescent evanescent roots at

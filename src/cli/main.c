@@ -6,6 +6,8 @@
 #include <string.h>
 
 static const sy_cli_verb verbs[] = {
+    {"run", "the main job: array yield, power matrices, annual energy, q-factor", sy_cmd_run},
+    {"hydro", "solve the array's hydrodynamics and write the database (NetCDF)", sy_cmd_hydro},
     {"sea", "wave climates and spectra: summary, CSV import, spectrum", sy_cmd_sea},
     {"check", "validate a project's inputs and say what a run would do", sy_cmd_check},
     {"version", "print the version and dependency versions", sy_cmd_version},
@@ -22,7 +24,7 @@ int main(int argc, char **argv)
 {
     sy_init();
     if (argc < 2) {
-        usage(stderr);
+        fprintf(stderr, "swellyield: expected a verb (swellyield --help lists them)\n");
         return SY_EXIT_USAGE;
     }
     if (strcmp(argv[1], "--help") == 0 || strcmp(argv[1], "-h") == 0) {

@@ -8,10 +8,17 @@
 #include <netcdf.h>
 #include <stdio.h>
 
+/* OpenBLAS's own thread pool (declared here: the seam to the BLAS build). */
+void openblas_set_num_threads(int num_threads);
+
 void sy_init(void)
 {
     /* GSL's default handler aborts; the library returns statuses instead. */
     gsl_set_error_handler_off();
+    /* Parallelism lives in the frequency sweeps (OpenMP, one LU per thread); BLAS
+     * threads inside them only oversubscribe the cores and cost more than they give on
+     * the small dense systems of a frequency. */
+    openblas_set_num_threads(1);
 }
 
 const char *sy_version(void) { return SY_VERSION_STRING; }

@@ -17,7 +17,7 @@ enum {
     K_DAMPING, K_STIFFNESS, K_EFFICIENCY, K_RATED, K_STROKE, K_TUNING,
     K_LAYOUT_FILE,
     K_SPECTRUM, K_GAMMA, K_SPREADING, K_PERIOD, K_DIRECTION,
-    K_OMEGA, K_HEADINGS, K_TOLERANCE, K_MAX_BODIES, K_MAX_OMEGA,
+    K_OMEGA, K_HEADINGS, K_TOLERANCE, K_MAX_BODIES, K_MAX_OMEGA, K_ORDERS, K_DEPTH_MODES,
     K_REGION, K_QTHRESH,
     K_COUNT
 };
@@ -42,6 +42,7 @@ static const struct {
     [K_OMEGA] = {"solve", "omega"},          [K_HEADINGS] = {"solve", "headings"},
     [K_TOLERANCE] = {"solve", "tolerance"},  [K_MAX_BODIES] = {"solve", "max_bodies"},
     [K_MAX_OMEGA] = {"solve", "max_frequencies"},
+    [K_ORDERS] = {"solve", "orders"},        [K_DEPTH_MODES] = {"solve", "depth_modes"},
     [K_REGION] = {"resonance", "region"},    [K_QTHRESH] = {"resonance", "q_threshold"},
 };
 
@@ -82,6 +83,22 @@ static char *read_line(char *str, int num, void *stream)
     if (!syi_utf8_valid(str, n)) {
         r->rc = sy_error_set(r->err, SY_EINPUT, "%s:%zu: not valid UTF-8 text", r->path, r->line);
         return NULL;
+    }
+    /* Section headers are checked here too: inih reports only keys, so an unknown
+     * section without keys would otherwise pass silently. */
+    const char *p = str + strspn(str, " \t");
+    if (*p == '[') {
+        size_t len = strcspn(p + 1, "]"), ns = sizeof sections / sizeof sections[0], s;
+        for (s = 0; s < ns && !(strlen(sections[s]) == len && strncmp(p + 1, sections[s], len) == 0); s++)
+            ;
+        if (s == ns) {
+            r->rc = sy_error_set(r->err, SY_EINPUT,
+                                 "%s:%zu: unknown section '[%.*s]' (expected site, device, pto, layout, sea, solve, resonance)",
+                                 r->path, r->line, (int)len, p + 1);
+            return NULL;
+        }
+        if (r->section_line[s] == 0)
+            r->section_line[s] = r->line;
     }
     return str;
 }
@@ -323,6 +340,16 @@ static int convert(sy_model *m, const reader *r, sy_error *err)
                             r->e[K_OMEGA].line, m->omega[0]);
     TRY(grid(&c, K_HEADINGS, "0", M_PI / 180.0, SY_MODEL_MAX_HEADINGS, &m->headings, &m->n_headings));
     TRY(number(&c, K_TOLERANCE, &m->tolerance, 1e-6, 0, 1e-13, 0, 0.1, 0, "in [1e-13, 0.1]"));
+    TRY(number(&c, K_ORDERS, &x, 0, 0, 0, 0, 60, 0, "a whole number 0..60 (0: from the tolerance)"));
+    m->orders = (size_t)x;
+    if ((double)m->orders != x)
+        return sy_error_set(err, SY_EINPUT, "%s:%zu: [solve] orders must be a whole number, got %g", r->path,
+                            r->e[K_ORDERS].line, x);
+    TRY(number(&c, K_DEPTH_MODES, &x, 0, 0, 0, 0, 60, 0, "a whole number 0..60 (0: from the tolerance)"));
+    m->depth_modes = (size_t)x;
+    if ((double)m->depth_modes != x)
+        return sy_error_set(err, SY_EINPUT, "%s:%zu: [solve] depth_modes must be a whole number, got %g", r->path,
+                            r->e[K_DEPTH_MODES].line, x);
 
     m->has_resonance = r->e[K_REGION].line != 0;
     if (m->has_resonance) {

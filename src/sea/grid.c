@@ -14,21 +14,24 @@ int syi_sea_check_grid(const double *omega, size_t n, const char *name, sy_error
     if (omega == NULL)
         return sy_error_set(err, SY_EINVAL, "sea: %s grid is NULL", name);
     if (n < 2)
-        return sy_error_set(err, SY_EINVAL, "sea: %s grid needs at least 2 points, got %zu", name, n);
+        return sy_error_set(err, SY_EINVAL, "sea: %s grid needs at least 2 points, got %zu", name,
+                            n);
     if (!(omega[0] > 0.0) || !isfinite(omega[0]))
         return sy_error_set(err, SY_EINVAL, "sea: %s[0] must be finite and > 0 rad/s, got %g", name,
                             omega[0]);
     for (size_t i = 1; i < n; i++)
         if (!(omega[i] > omega[i - 1]) || !isfinite(omega[i]))
-            return sy_error_set(err, SY_EINVAL,
-                                "sea: %s must be finite and strictly increasing, got %s[%zu] = %g after %g",
-                                name, name, i, omega[i], omega[i - 1]);
+            return sy_error_set(
+                err, SY_EINVAL,
+                "sea: %s must be finite and strictly increasing, got %s[%zu] = %g after %g", name,
+                name, i, omega[i], omega[i - 1]);
     return SY_OK;
 }
 
 void syi_sea_cell(const double *omega, size_t n, size_t i, double *a, double *b)
 {
-    *a = i > 0 ? 0.5 * (omega[i - 1] + omega[i]) : fmax(0.0, omega[0] - 0.5 * (omega[1] - omega[0]));
+    *a =
+        i > 0 ? 0.5 * (omega[i - 1] + omega[i]) : fmax(0.0, omega[0] - 0.5 * (omega[1] - omega[0]));
     *b = i + 1 < n ? 0.5 * (omega[i] + omega[i + 1])
                    : omega[n - 1] + 0.5 * (omega[n - 1] - omega[n - 2]);
 }

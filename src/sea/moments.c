@@ -31,7 +31,8 @@ int sy_sea_moments_sampled(const double *omega, const double *S, size_t n, sy_se
     for (size_t i = 0; i < n; i++) {
         if (!(S[i] >= 0.0) || !isfinite(S[i]))
             return sy_error_set(err, SY_EINPUT,
-                                "sea: spectral density must be finite and >= 0 m^2 s/rad, got S[%zu] = %g at omega %g rad/s",
+                                "sea: spectral density must be finite and >= 0 m^2 s/rad, got "
+                                "S[%zu] = %g at omega %g rad/s",
                                 i, S[i], omega[i]);
         double a, b, w = omega[i];
         syi_sea_cell(omega, n, i, &a, &b);
@@ -43,7 +44,8 @@ int sy_sea_moments_sampled(const double *omega, const double *S, size_t n, sy_se
         m[4] += e * w * w;
     }
     if (!(m[2] > 0.0))
-        return sy_error_set(err, SY_EINPUT, "sea: sampled spectrum has no energy (m0 = %g m^2)", m[2]);
+        return sy_error_set(err, SY_EINPUT, "sea: sampled spectrum has no energy (m0 = %g m^2)",
+                            m[2]);
     for (int j = 0; j < 5; j++)
         out->m[j] = m[j];
     finish(out);

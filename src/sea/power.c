@@ -12,9 +12,11 @@
 static int check_rho_g(double rho, double g, sy_error *err)
 {
     if (!(rho > 0.0) || !isfinite(rho))
-        return sy_error_set(err, SY_EINPUT, "sea: water density rho must be finite and > 0 kg/m^3, got %g", rho);
+        return sy_error_set(err, SY_EINPUT,
+                            "sea: water density rho must be finite and > 0 kg/m^3, got %g", rho);
     if (!(g > 0.0) || !isfinite(g))
-        return sy_error_set(err, SY_EINPUT, "sea: gravity g must be finite and > 0 m/s^2, got %g", g);
+        return sy_error_set(err, SY_EINPUT, "sea: gravity g must be finite and > 0 m/s^2, got %g",
+                            g);
     return SY_OK;
 }
 
@@ -44,7 +46,8 @@ int sy_sea_power_regular(double rho, double g, double a, double omega, double h,
     if (rc != SY_OK)
         return rc;
     if (!(a >= 0.0) || !isfinite(a))
-        return sy_error_set(err, SY_EINPUT, "sea: wave amplitude must be finite and >= 0 m, got %g", a);
+        return sy_error_set(err, SY_EINPUT, "sea: wave amplitude must be finite and >= 0 m, got %g",
+                            a);
     double cg;
     rc = group_velocity(omega, g, h, &cg, err);
     if (rc == SY_OK)
@@ -80,7 +83,8 @@ int sy_sea_spectrum_power(const sy_sea_spectrum *s, double rho, double g, double
     if (rc != SY_OK)
         return rc;
     if (!(h > 0.0))
-        return sy_error_set(err, SY_EINPUT, "sea: depth h must be > 0 m (INFINITY for deep water), got %g", h);
+        return sy_error_set(err, SY_EINPUT,
+                            "sea: depth h must be > 0 m (INFINITY for deep water), got %g", h);
     struct power_arg a = {s, g, h, 0};
     /* Split at the peak and at 2 wp: the JONSWAP peak is sharp, the tail smooth. */
     const double wp = s->omega_p, cut[] = {0.0, wp, 2.0 * wp, INFINITY};
@@ -91,7 +95,8 @@ int sy_sea_spectrum_power(const sy_sea_spectrum *s, double rho, double g, double
         sum += part;
     }
     if (rc == SY_OK && a.failed)
-        rc = sy_error_set(err, SY_ENOCONV, "sea: group velocity failed inside the power integral (h = %g m)", h);
+        rc = sy_error_set(err, SY_ENOCONV,
+                          "sea: group velocity failed inside the power integral (h = %g m)", h);
     if (rc == SY_OK)
         *J = rho * g * sum;
     return rc;
@@ -111,8 +116,10 @@ int sy_sea_power_sampled(const double *omega, const double *S, size_t n, double 
     for (size_t i = 0; i < n; i++) {
         double a, b, cg;
         if (!(S[i] >= 0.0) || !isfinite(S[i]))
-            return sy_error_set(err, SY_EINPUT, "sea: spectral density must be finite and >= 0 m^2 s/rad, got S[%zu] = %g",
-                                i, S[i]);
+            return sy_error_set(
+                err, SY_EINPUT,
+                "sea: spectral density must be finite and >= 0 m^2 s/rad, got S[%zu] = %g", i,
+                S[i]);
         syi_sea_cell(omega, n, i, &a, &b);
         rc = group_velocity(omega[i], g, h, &cg, err);
         if (rc != SY_OK)
@@ -123,7 +130,8 @@ int sy_sea_power_sampled(const double *omega, const double *S, size_t n, double 
     return SY_OK;
 }
 
-double sy_sea_power_directional(double J, const double *beta, const double *D, size_t n, double theta)
+double sy_sea_power_directional(double J, const double *beta, const double *D, size_t n,
+                                double theta)
 {
     double sum = 0.0;
     for (size_t j = 0; j < n; j++) {

@@ -11,8 +11,8 @@
 /* Subintervals GSL may create: generous for smooth integrands with one sharp peak. */
 #define WORKSPACE_INTERVALS 1000
 
-int syi_sea_integrate(double (*f)(double x, void *p), void *p, double a, double b,
-                      double *result, const char *what, sy_error *err)
+int syi_sea_integrate(double (*f)(double x, void *p), void *p, double a, double b, double *result,
+                      const char *what, sy_error *err)
 {
     gsl_integration_workspace *w = gsl_integration_workspace_alloc(WORKSPACE_INTERVALS);
     if (w == NULL)
@@ -26,6 +26,7 @@ int syi_sea_integrate(double (*f)(double x, void *p), void *p, double a, double 
     gsl_integration_workspace_free(w);
     if (st == GSL_SUCCESS || (isfinite(*result) && abserr <= SYI_SEA_EPSREL_ACCEPT * fabs(*result)))
         return SY_OK;
-    return sy_error_set(err, SY_ENOCONV, "sea: integral of %s over [%g, %g] failed: %s (estimate %g +- %g)",
-                        what, a, b, gsl_strerror(st), *result, abserr);
+    return sy_error_set(err, SY_ENOCONV,
+                        "sea: integral of %s over [%g, %g] failed: %s (estimate %g +- %g)", what, a,
+                        b, gsl_strerror(st), *result, abserr);
 }

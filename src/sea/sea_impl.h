@@ -15,8 +15,8 @@
 
 /* int_a^b f(x) dx with GSL's adaptive Gauss-Kronrod rule (b = INFINITY allowed). `what`
  * names the integral in error messages. SY_ENOMEM, SY_ENOCONV. */
-int syi_sea_integrate(double (*f)(double x, void *p), void *p, double a, double b,
-                      double *result, const char *what, sy_error *err);
+int syi_sea_integrate(double (*f)(double x, void *p), void *p, double a, double b, double *result,
+                      const char *what, sy_error *err);
 
 /* The dimensionless spectral shape s(u) = u^-5 exp(-5/4 u^-4) gamma^r(u), u = w/wp,
  * ln_gamma = ln(gamma) (0 for PM). */

@@ -118,7 +118,7 @@ static int gamma_by_rule(const sy_sea_spectrum_spec *sp, double *gamma, sy_error
         double mid = 0.5 * (lo + hi);
         int rc = SY_OK;
         for (int n = -1; rc == SY_OK && n <= 2; n++)
-            if (n != 1)   /* mu_-1, mu_0, mu_2 */
+            if (n != 1) /* mu_-1, mu_0, mu_2 */
                 rc = shape_moment(n, mid, &mu[n + 2], err);
         if (rc != SY_OK)
             return rc;
@@ -145,19 +145,22 @@ static int check_spec(const sy_sea_spectrum_spec *sp, sy_error *err)
         if (per[i] == 0.0)
             continue;
         if (!(per[i] > 0.0) || !isfinite(per[i]))
-            return sy_error_set(err, SY_EINPUT, "sea: %s must be finite and > 0 s (or 0 = not given), got %g",
+            return sy_error_set(err, SY_EINPUT,
+                                "sea: %s must be finite and > 0 s (or 0 = not given), got %g",
                                 name[i], per[i]);
         given++;
     }
     if (given != 1)
         return sy_error_set(err, SY_EINPUT, "sea: give exactly one of Tp, Te, Tz, got %d", given);
     if (sp->kind == SY_SEA_PM && sp->gamma != 0.0 && sp->gamma != 1.0)
-        return sy_error_set(err, SY_EINPUT,
-                            "sea: gamma must be 1 (or 0) for a Pierson-Moskowitz spectrum, got %g; use JONSWAP",
-                            sp->gamma);
+        return sy_error_set(
+            err, SY_EINPUT,
+            "sea: gamma must be 1 (or 0) for a Pierson-Moskowitz spectrum, got %g; use JONSWAP",
+            sp->gamma);
     if (sp->kind == SY_SEA_JONSWAP && sp->gamma != 0.0 &&
         !(sp->gamma >= GAMMA_MIN && sp->gamma <= GAMMA_MAX))
-        return sy_error_set(err, SY_EINPUT, "sea: JONSWAP gamma must be in [%g, %g] (or 0 = DNV rule), got %g",
+        return sy_error_set(err, SY_EINPUT,
+                            "sea: JONSWAP gamma must be in [%g, %g] (or 0 = DNV rule), got %g",
                             GAMMA_MIN, GAMMA_MAX, sp->gamma);
     if (sp->norm != SY_SEA_NORM_DNV && sp->norm != SY_SEA_NORM_EXACT)
         return sy_error_set(err, SY_EINPUT, "sea: normalisation %d unknown, expected DNV or EXACT",
@@ -172,8 +175,8 @@ int sy_sea_spectrum_init(sy_sea_spectrum *out, const sy_sea_spectrum_spec *sp, s
     int rc = check_spec(sp, err);
     if (rc != SY_OK)
         return rc;
-    sy_sea_spectrum s = {.kind = sp->kind, .hs = sp->hs, .gamma = 1.0, .alpha = 1.0,
-                         .norm = SY_SEA_NORM_EXACT};
+    sy_sea_spectrum s = {
+        .kind = sp->kind, .hs = sp->hs, .gamma = 1.0, .alpha = 1.0, .norm = SY_SEA_NORM_EXACT};
     if (sp->kind == SY_SEA_JONSWAP) {
         s.gamma = sp->gamma;
         if (sp->gamma == 0.0) {
@@ -188,7 +191,8 @@ int sy_sea_spectrum_init(sy_sea_spectrum *out, const sy_sea_spectrum_spec *sp, s
     if (rc != SY_OK)
         return rc;
     if (s.kind == SY_SEA_JONSWAP)
-        s.alpha = s.norm == SY_SEA_NORM_DNV ? 1.0 - DNV_A_COEF * log(s.gamma) : 1.0 / (5.0 * s.mu[2]);
+        s.alpha =
+            s.norm == SY_SEA_NORM_DNV ? 1.0 - DNV_A_COEF * log(s.gamma) : 1.0 / (5.0 * s.mu[2]);
     s.tp = tp_from(sp, s.mu);
     s.omega_p = 2.0 * SYI_PI / s.tp;
     s.scale = s.alpha * (5.0 / 16.0) * s.hs * s.hs / s.omega_p;
@@ -219,7 +223,8 @@ static double shape_integrand(double u, void *p)
 }
 
 /* int_{u0}^{u1} s(u) du (u1 may be INFINITY), split at the peak. */
-static int shape_integral(const sy_sea_spectrum *s, double u0, double u1, double *val, sy_error *err)
+static int shape_integral(const sy_sea_spectrum *s, double u0, double u1, double *val,
+                          sy_error *err)
 {
     if (s->kind == SY_SEA_PM) {
         /* d/du [(1/5) exp(-e(u))] = s(u), e = 5/4 u^-4; the difference written with
@@ -227,7 +232,7 @@ static int shape_integral(const sy_sea_spectrum *s, double u0, double u1, double
         double e1 = isinf(u1) ? 0.0 : 1.25 / pow(u1, 4);
         double e0 = u0 > 0 ? 1.25 / pow(u0, 4) : INFINITY;
         if (!(u1 > u0) || e1 > SHAPE_EXP_MAX) {
-            *val = 0.0;   /* empty band, or all of it where s(u) < 1e-300 */
+            *val = 0.0; /* empty band, or all of it where s(u) < 1e-300 */
             return SY_OK;
         }
         *val = -0.2 * exp(-e1) * expm1(e1 - e0);
@@ -262,7 +267,8 @@ int sy_sea_spectrum_cdf(const sy_sea_spectrum *s, double omega, double *frac, sy
     return rc;
 }
 
-int syi_sea_spectrum_band(const sy_sea_spectrum *s, double w0, double w1, double *frac, sy_error *err)
+int syi_sea_spectrum_band(const sy_sea_spectrum *s, double w0, double w1, double *frac,
+                          sy_error *err)
 {
     double v;
     int rc = shape_integral(s, w0 / s->omega_p, isinf(w1) ? INFINITY : w1 / s->omega_p, &v, err);
@@ -287,12 +293,12 @@ void sy_sea_spectrum_moments(const sy_sea_spectrum *s, sy_sea_moments *out)
 int sy_sea_spectrum_describe(const sy_sea_spectrum *s, char *buf, size_t size)
 {
     if (s->kind == SY_SEA_PM)
-        return snprintf(buf, size, "Pierson-Moskowitz Hs %g m Tp %.6g s (Te %.6g s, Tz %.6g s)", s->hs,
-                        s->tp, s->te, s->tz);
+        return snprintf(buf, size, "Pierson-Moskowitz Hs %g m Tp %.6g s (Te %.6g s, Tz %.6g s)",
+                        s->hs, s->tp, s->te, s->tz);
     return snprintf(buf, size,
                     "JONSWAP Hs %g m Tp %.6g s (Te %.6g s, Tz %.6g s) gamma %.6g%s sigma %g/%g "
                     "norm %s A %.6g Hm0 %.6g m",
                     s->hs, s->tp, s->te, s->tz, s->gamma, s->gamma_from_rule ? " (DNV rule)" : "",
-                    SIGMA_BELOW, SIGMA_ABOVE, s->norm == SY_SEA_NORM_DNV ? "DNV" : "exact", s->alpha,
-                    s->hm0);
+                    SIGMA_BELOW, SIGMA_ABOVE, s->norm == SY_SEA_NORM_DNV ? "DNV" : "exact",
+                    s->alpha, s->hm0);
 }

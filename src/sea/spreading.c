@@ -23,11 +23,13 @@ int sy_sea_spreading_init(sy_sea_spreading *d, double s, double theta0, sy_error
     if (d == NULL)
         return sy_error_set(err, SY_EINVAL, "sea: spreading record is NULL");
     if (!(s >= 0.0 && s <= SY_SEA_SPREAD_S_MAX))
-        return sy_error_set(err, SY_EINPUT,
-                            "sea: spreading exponent s must be in [0, %g] (0 = long-crested), got %g",
-                            SY_SEA_SPREAD_S_MAX, s);
+        return sy_error_set(
+            err, SY_EINPUT,
+            "sea: spreading exponent s must be in [0, %g] (0 = long-crested), got %g",
+            SY_SEA_SPREAD_S_MAX, s);
     if (!isfinite(theta0))
-        return sy_error_set(err, SY_EINPUT, "sea: mean wave direction must be finite, got %g", theta0);
+        return sy_error_set(err, SY_EINPUT, "sea: mean wave direction must be finite, got %g",
+                            theta0);
     d->s = s;
     d->theta0 = theta0;
     d->norm = 0.0;
@@ -37,7 +39,8 @@ int sy_sea_spreading_init(sy_sea_spreading *d, double s, double theta0, sy_error
         if (st == GSL_SUCCESS)
             st = gsl_sf_lngamma_e(s + 0.5, &b);
         if (st != GSL_SUCCESS)
-            return sy_error_set(err, SY_ELOSS, "sea: log-gamma for spreading s = %g: %s", s, gsl_strerror(st));
+            return sy_error_set(err, SY_ELOSS, "sea: log-gamma for spreading s = %g: %s", s,
+                                gsl_strerror(st));
         d->norm = exp(a.val - b.val) / (2.0 * sqrt(SYI_PI));
     }
     return SY_OK;
@@ -46,7 +49,7 @@ int sy_sea_spreading_init(sy_sea_spreading *d, double s, double theta0, sy_error
 /* theta - theta0 wrapped to (-pi, pi]. */
 static double wrap(double phi)
 {
-    phi = remainder(phi, 2.0 * SYI_PI);   /* [-pi, pi] */
+    phi = remainder(phi, 2.0 * SYI_PI); /* [-pi, pi] */
     return phi == -SYI_PI ? SYI_PI : phi;
 }
 
@@ -63,17 +66,18 @@ double sy_sea_spreading_eval(const sy_sea_spreading *d, double theta)
 static int cumulative(const sy_sea_spreading *d, double phi, double *C, sy_error *err)
 {
     double turns = floor((phi + SYI_PI) / (2.0 * SYI_PI));
-    double p = fmin(SYI_PI, fmax(-SYI_PI, phi - 2.0 * SYI_PI * turns));   /* [-pi, pi] */
+    double p = fmin(SYI_PI, fmax(-SYI_PI, phi - 2.0 * SYI_PI * turns)); /* [-pi, pi] */
     double half = 0.0;
     if (d->s == 0.0) {
-        half = p >= 0.0 ? 0.5 : -0.5;   /* Dirac at 0: the step sits at phi = 0 */
+        half = p >= 0.0 ? 0.5 : -0.5; /* Dirac at 0: the step sits at phi = 0 */
     } else {
         double x = sin(0.5 * p);
         gsl_sf_result r;
         int st = gsl_sf_beta_inc_e(0.5, d->s + 0.5, x * x, &r);
         if (st != GSL_SUCCESS)
-            return sy_error_set(err, SY_ELOSS, "sea: incomplete beta for spreading s = %g at %g rad: %s",
-                                d->s, p, gsl_strerror(st));
+            return sy_error_set(err, SY_ELOSS,
+                                "sea: incomplete beta for spreading s = %g at %g rad: %s", d->s, p,
+                                gsl_strerror(st));
         half = copysign(0.5 * r.val, p);
     }
     *C = turns + 0.5 + half;
@@ -84,16 +88,23 @@ int sy_sea_spreading_weights(const sy_sea_spreading *d, const double *beta, size
                              double *outside, sy_error *err)
 {
     if (d == NULL || beta == NULL || D == NULL || n == 0)
-        return sy_error_set(err, SY_EINVAL, "sea: spreading weights need a spreading, headings and output (n = %zu)", n);
+        return sy_error_set(
+            err, SY_EINVAL,
+            "sea: spreading weights need a spreading, headings and output (n = %zu)", n);
     for (size_t j = 0; j < n; j++) {
         if (!isfinite(beta[j]) || (j > 0 && !(beta[j] > beta[j - 1])))
-            return sy_error_set(err, SY_EINVAL,
-                                "sea: headings must be finite and strictly increasing, got beta[%zu] = %g rad",
-                                j, beta[j]);
+            return sy_error_set(
+                err, SY_EINVAL,
+                "sea: headings must be finite and strictly increasing, got beta[%zu] = %g rad", j,
+                beta[j]);
     }
     double span = beta[n - 1] - beta[0];
     if (!(span < 2.0 * SYI_PI))
-        return sy_error_set(err, SY_EINVAL, "sea: headings must span less than 2 pi, got %g rad", span);
+        return sy_error_set(
+            err, SY_EINVAL,
+            "sea: headings must span less than 2 pi (a full circle lists 0 or 360 deg, "
+            "not both), got %g rad",
+            span);
     double lo, hi;
     if (n == 1) {
         lo = beta[0] - SYI_PI;
@@ -102,7 +113,7 @@ int sy_sea_spreading_weights(const sy_sea_spreading *d, const double *beta, size
         double h_lo = 0.5 * (beta[1] - beta[0]), h_hi = 0.5 * (beta[n - 1] - beta[n - 2]);
         double gap = 2.0 * SYI_PI - span;
         if (h_lo + h_hi >= gap * (1.0 - WRAP_TOL)) {
-            lo = beta[0] - 0.5 * gap;   /* circular list: split the wrap gap */
+            lo = beta[0] - 0.5 * gap; /* circular list: split the wrap gap */
             hi = beta[n - 1] + 0.5 * gap;
         } else {
             lo = beta[0] - h_lo;

@@ -41,10 +41,14 @@
 
 static int check_args(double complex omega, double h, double g, sy_error *err)
 {
-    if (!isfinite(creal(omega)) || !isfinite(cimag(omega)) || !(creal(omega) > 0.0))
+    if (!isfinite(creal(omega)) || !isfinite(cimag(omega)) || !(creal(omega) > 0.0)) {
+        if (cimag(omega) == 0.0)
+            return sy_error_set(err, SY_EINVAL, "waves: omega must be finite and > 0 rad/s, got %g",
+                                creal(omega));
         return sy_error_set(err, SY_EINVAL,
                             "waves: omega must be finite with Re(omega) > 0 rad/s, got %g%+gi",
                             creal(omega), cimag(omega));
+    }
     if (!(h > 0.0) || isnan(h))
         return sy_error_set(err, SY_EINVAL,
                             "waves: depth h must be > 0 m (INFINITY for deep water), got %g", h);
@@ -89,7 +93,7 @@ static int solve_x0(double y, double *x_out)
         }
     }
     *x_out = x;
-    return SY_OK;   /* bracket collapsed to the last representable interval */
+    return SY_OK; /* bracket collapsed to the last representable interval */
 }
 
 /* (m pi - t) sin t = y cos t for t in (0, pi/2), m >= 1 (real, safeguarded Newton). */
@@ -114,7 +118,7 @@ static double solve_tm(size_t m, double y)
         double df = -s + a * c + y * s;
         double dt = f / df;
         if (fabs(dt) <= NEWTON_ULPS * DBL_EPSILON * t)
-            return t - dt;   /* see solve_x0 */
+            return t - dt; /* see solve_x0 */
         double tn = t - dt;
         if (!(tn > lo && tn < hi))
             tn = 0.5 * (lo + hi);
@@ -149,8 +153,8 @@ double sy_waves_group_velocity(double omega, double k, double h)
 
 /* The complex unknown z (x for m = 0, t for m >= 1), its function value and derivative
  * at parameter Y = omega^2 h / g, and dz/dY for the predictor. */
-static void fun(size_t m, double complex z, double complex Y, double complex *f,
-                double complex *df, double complex *dzdY)
+static void fun(size_t m, double complex z, double complex Y, double complex *f, double complex *df,
+                double complex *dzdY)
 {
     if (m == 0) {
         double complex t = ctanh(z);
@@ -194,8 +198,8 @@ static double branch_radius(size_t m, double complex z)
     return BRANCH_FRACTION * sep;
 }
 
-int syi_waves_root_continue(size_t m, double complex omega, double h, double g,
-                            double complex *k, sy_error *err)
+int syi_waves_root_continue(size_t m, double complex omega, double h, double g, double complex *k,
+                            sy_error *err)
 {
     int rc = check_args(omega, h, g, err);
     if (rc != SY_OK)
@@ -252,9 +256,10 @@ int sy_waves_roots_fill(sy_wave_roots *r, double complex omega, double h, double
     if (rc != SY_OK)
         return rc;
     if (isinf(h) && n_evanescent > 0)
-        return sy_error_set(err, SY_EINVAL,
-                            "waves: evanescent roots need a finite depth, got h = inf with %zu roots",
-                            n_evanescent);
+        return sy_error_set(
+            err, SY_EINVAL,
+            "waves: evanescent roots need a finite depth, got h = inf with %zu roots",
+            n_evanescent);
     r->omega = omega;
     r->h = h;
     r->g = g;

@@ -20,9 +20,16 @@
 /* Search range for the shared damping, relative to the isolated device's passive optimum
  * at the bin's energy frequency: +-3 decades hold every sensible PTO setting. */
 #define B_RANGE 1e3
-#define SCAN_POINTS 13  /* coarse log scan that brackets the maximum (half a decade apart) */
+#define BRACKET_STEP 1.0986 /* ln 3: first step of the bracketing search in log b */
 #define LOGB_TOL 1e-5   /* precision of log b: the power is flat at its maximum, so this
                            is far below any effect on energy */
+/* Sea-state cells (frequency x heading) whose share of a group's energy is below this
+ * are skipped: at most n_omega x n_headings x 1e-12 of the energy, far below any digit
+ * reported. */
+#define CELL_FLOOR 1e-12
+/* The damping searches only need the location of a flat maximum: cells below 1e-7 of a
+ * group's energy (together < 1e-4 of it) are left out of the search, not of the results. */
+#define SEARCH_FLOOR 1e-7
 #define MAX_ITER 100
 
 const char *sy_yield_strategy_name(int s)
@@ -30,6 +37,13 @@ const char *sy_yield_strategy_name(int s)
     static const char *const names[] = {"fixed", "per_sea_state", "site_optimal", "reactive_bound"};
     return s >= 0 && s < SY_YIELD_N_STRATEGIES ? names[s] : "?";
 }
+
+/* The (frequency, heading) cells of each group with a non-negligible energy share. */
+typedef struct cells {
+    size_t *start;      /* [n_groups + 1] each group's cells */
+    unsigned *io, *ih;  /* frequency and heading index of each cell */
+    double *a2;         /* amplitude^2 per unit Hs^2 of each cell, m^2/m^2 */
+} cells;
 
 typedef struct ctx {
     const sy_model *m;
@@ -52,6 +66,8 @@ typedef struct ctx {
     double *tab_p, *tab_v;          /* [no][nh][nd] power, motion^2 per unit amplitude^2 */
     double *tab_ip;                 /* [no][nh][nd] isolated power of each device */
     double *gp;                     /* [n_groups][nd] unit-Hs group powers */
+    cells full;                     /* every cell above CELL_FLOOR: the reported values */
+    cells search;                   /* cells above SEARCH_FLOOR: the damping searches */
     size_t group;                   /* group being optimised */
     double limit_v;                 /* motion variance at the stroke limit for the bin being solved */
     sy_error *err;
@@ -59,24 +75,55 @@ typedef struct ctx {
 
 static double electrical(const sy_model *m, double mech) { return fmin(m->efficiency * mech, m->rated_power); }
 
-/* Unit-Hs array power and motion variance of group g for shared damping b (the group's
- * headings only), into pdev, vdev. */
-static void group_modal(ctx *c, size_t g, double b)
+/* Each group's cells with more than `floor` of its energy. */
+static int build_cells(const ctx *c, double floor, cells *cs, sy_error *err)
 {
     const syi_yield_seas *s = c->seas;
+    size_t cap = s->n_groups * c->no * c->nh, k = 0;
+    cs->start = malloc((s->n_groups + 1) * sizeof *cs->start);
+    cs->io = malloc(cap * sizeof *cs->io);
+    cs->ih = malloc(cap * sizeof *cs->ih);
+    cs->a2 = malloc(cap * sizeof *cs->a2);
+    if (!cs->start || !cs->io || !cs->ih || !cs->a2)
+        return sy_error_set(err, SY_ENOMEM, "sea-state cells");
+    for (size_t g = 0; g < s->n_groups; g++) {
+        double total = 0;
+        for (size_t ih = 0; ih < c->nh; ih++)
+            for (size_t io = 0; io < c->no; io++)
+                total += s->amp2[g * c->no + io] * s->dir[g * c->nh + ih];
+        cs->start[g] = k;
+        for (size_t ih = 0; ih < c->nh; ih++)
+            for (size_t io = 0; io < c->no; io++) {
+                double a2 = s->amp2[g * c->no + io] * s->dir[g * c->nh + ih];
+                if (a2 > floor * total) {
+                    cs->io[k] = (unsigned)io, cs->ih[k] = (unsigned)ih, cs->a2[k] = a2;
+                    k++;
+                }
+            }
+    }
+    cs->start[s->n_groups] = k;
+    return SY_OK;
+}
+
+static void free_cells(cells *cs)
+{
+    free(cs->start);
+    free(cs->io);
+    free(cs->ih);
+    free(cs->a2);
+}
+
+/* Unit-Hs array power and motion variance of group g for shared damping b, into pdev, vdev. */
+static void group_modal(ctx *c, const cells *cs, size_t g, double b)
+{
     memset(c->pdev, 0, c->nd * sizeof *c->pdev);
     memset(c->vdev, 0, c->nd * sizeof *c->vdev);
-    for (size_t ih = 0; ih < c->nh; ih++) {
-        double d = s->dir[g * c->nh + ih];
-        for (size_t io = 0; d > 0 && io < c->no; io++) {
-            double a2 = s->amp2[g * c->no + io] * d;
-            if (a2 == 0.0)
-                continue;
-            sy_dyn_modal_eval(c->modal, io, ih, b, c->scratch, c->pw, c->m2);
-            for (size_t q = 0; q < c->nd; q++) {
-                c->pdev[q] += a2 * c->pw[q];
-                c->vdev[q] += 0.5 * a2 * c->m2[q];
-            }
+    for (size_t k = cs->start[g]; k < cs->start[g + 1]; k++) {
+        double a2 = cs->a2[k];
+        sy_dyn_modal_eval(c->modal, cs->io[k], cs->ih[k], b, c->scratch, c->pw, c->m2);
+        for (size_t q = 0; q < c->nd; q++) {
+            c->pdev[q] += a2 * c->pw[q];
+            c->vdev[q] += 0.5 * a2 * c->m2[q];
         }
     }
 }
@@ -84,16 +131,13 @@ static void group_modal(ctx *c, size_t g, double b)
 /* Sum a per-(omega, heading, device) table over group g (unit Hs) into out[nd]. */
 static void group_table(const ctx *c, size_t g, const double *tab, double scale, double *out)
 {
-    const syi_yield_seas *s = c->seas;
     memset(out, 0, c->nd * sizeof *out);
-    for (size_t ih = 0; ih < c->nh; ih++) {
-        double d = s->dir[g * c->nh + ih];
-        for (size_t io = 0; d > 0 && io < c->no; io++) {
-            double a2 = scale * s->amp2[g * c->no + io] * d;
-            const double *t = tab + (io * c->nh + ih) * c->nd;
-            for (size_t q = 0; a2 > 0 && q < c->nd; q++)
-                out[q] += a2 * t[q];
-        }
+    const cells *cs = &c->full;
+    for (size_t k = cs->start[g]; k < cs->start[g + 1]; k++) {
+        double a2 = scale * cs->a2[k];
+        const double *t = tab + ((size_t)cs->io[k] * c->nh + cs->ih[k]) * c->nd;
+        for (size_t q = 0; q < c->nd; q++)
+            out[q] += a2 * t[q];
     }
 }
 
@@ -142,23 +186,38 @@ static double neg_fn(double x, void *pp)
  * optimum on the boundary of the range is kept as is. */
 static int maximise(const scalar_fn *o, double xlo, double xhi, double *xbest, sy_error *err)
 {
-    double xs[SCAN_POINTS], fs[SCAN_POINTS];
-    size_t best = 0;
-    for (size_t i = 0; i < SCAN_POINTS; i++) {
-        xs[i] = xlo + (xhi - xlo) * (double)i / (SCAN_POINTS - 1);
-        fs[i] = o->f(xs[i], o->p);
-        if (fs[i] > fs[best])
-            best = i;
+    /* Bracket from the middle of the range (the reference damping) outward in growing
+     * steps; an optimum that runs into the end of the range is kept there. */
+    double xa, xb = 0.5 * (xlo + xhi), xc, fb = o->f(xb, o->p), fa, fc, h = BRACKET_STEP;
+    xc = fmin(xb + h, xhi), fc = o->f(xc, o->p);
+    xa = fmax(xb - h, xlo), fa = o->f(xa, o->p);
+    while (fc > fb || fa > fb) {
+        if (fc > fb) { /* uphill to the right */
+            if (xc >= xhi) {
+                *xbest = xhi;
+                return SY_OK;
+            }
+            xa = xb, fa = fb, xb = xc, fb = fc;
+            h *= 2;
+            xc = fmin(xb + h, xhi), fc = o->f(xc, o->p);
+        } else { /* uphill to the left */
+            if (xa <= xlo) {
+                *xbest = xlo;
+                return SY_OK;
+            }
+            xc = xb, fc = fb, xb = xa, fb = fa;
+            h *= 2;
+            xa = fmax(xb - h, xlo), fa = o->f(xa, o->p);
+        }
     }
-    *xbest = xs[best];
-    if (best == 0 || best == SCAN_POINTS - 1 || !(fs[best] > fs[best - 1] && fs[best] > fs[best + 1]))
-        return SY_OK;
+    *xbest = xb;
+    if (!(fb > fa && fb > fc))
+        return SY_OK; /* flat (e.g. capped at rated power everywhere): any point serves */
     gsl_min_fminimizer *mn = gsl_min_fminimizer_alloc(gsl_min_fminimizer_brent);
     if (mn == NULL)
         return sy_error_set(err, SY_ENOMEM, "damping search");
     gsl_function g = {neg_fn, (void *)o};
-    int st = gsl_min_fminimizer_set_with_values(mn, &g, xs[best], -fs[best], xs[best - 1], -fs[best - 1],
-                                                xs[best + 1], -fs[best + 1]);
+    int st = gsl_min_fminimizer_set_with_values(mn, &g, xb, -fb, xa, -fa, xc, -fc);
     for (int it = 0; st == GSL_SUCCESS && it < MAX_ITER; it++) {
         st = gsl_min_fminimizer_iterate(mn);
         if (gsl_min_test_interval(gsl_min_fminimizer_x_lower(mn), gsl_min_fminimizer_x_upper(mn), LOGB_TOL, 0.0) ==
@@ -194,7 +253,7 @@ static int root(const scalar_fn *o, double xlo, double xhi, double *x, sy_error 
 static double group_power_fn(double x, void *p)
 {
     ctx *c = p;
-    group_modal(c, c->group, exp(x));
+    group_modal(c, &c->search, c->group, exp(x));
     double s = 0;
     for (size_t q = 0; q < c->nd; q++)
         s += c->pdev[q];
@@ -205,7 +264,7 @@ static double group_power_fn(double x, void *p)
 static double group_stroke_fn(double x, void *p)
 {
     ctx *c = p;
-    group_modal(c, c->group, exp(x));
+    group_modal(c, &c->full, c->group, exp(x));
     double v = 0;
     for (size_t q = 0; q < c->nd; q++)
         v = fmax(v, c->vdev[q]);
@@ -326,53 +385,65 @@ static int strategy_fixed(ctx *c, sy_yield_result *r)
  * scales with Hs^2), so it is searched once per group; the stroke limit, which depends
  * on Hs, then raises the damping bin by bin to b_min with stroke(b_min) = max_stroke
  * (the power is taken as unimodal in b, so the constrained optimum is max(b_opt, b_min)). */
+/* Unit-Hs isolated power of every device in group g at damping b, into out[nd]. */
+static void group_iso(ctx *c, size_t g, double b, double *out)
+{
+    double complex sc;
+    memset(out, 0, c->nd * sizeof *out);
+    const cells *cs = &c->full;
+    for (size_t j = cs->start[g]; j < cs->start[g + 1]; j++)
+        for (size_t q = 0; q < c->nd; q++) {
+            double p;
+            sy_dyn_modal_eval(c->iso_modal[c->iso_of[q]], cs->io[j], cs->ih[j], b, &sc, &p, NULL);
+            out[q] += cs->a2[j] * p;
+        }
+}
+
 static int strategy_per_sea_state(ctx *c, sy_yield_result *r)
 {
     const syi_yield_seas *s = c->seas;
-    size_t nd = c->nd;
-    double *iso = malloc(nd * sizeof *iso), *bopt = malloc(s->n_groups * sizeof *bopt);
+    size_t nd = c->nd, ng = s->n_groups;
+    double *iso = malloc(nd * sizeof *iso), *bopt = malloc(ng * sizeof *bopt);
+    double *gv = c->gp + ng * nd, *gi = gv + ng * nd; /* unit-Hs results at each group's optimum */
     int rc = iso && bopt ? SY_OK : sy_error_set(c->err, SY_ENOMEM, "per-sea-state tuning");
     scalar_fn power = {group_power_fn, c}, stroke = {group_stroke_fn, c};
-    for (size_t g = 0; rc == SY_OK && g < s->n_groups; g++) {
+    for (size_t g = 0; rc == SY_OK && g < ng; g++) {
         double bref = reference_damping(c, g), x;
         c->group = g;
         rc = maximise(&power, log(bref / B_RANGE), log(bref * B_RANGE), &x, c->err);
         bopt[g] = exp(x);
+        group_modal(c, &c->full, g, bopt[g]);
+        memcpy(c->gp + g * nd, c->pdev, nd * sizeof *c->pdev);
+        memcpy(gv + g * nd, c->vdev, nd * sizeof *c->vdev);
+        group_iso(c, g, bopt[g], gi + g * nd);
     }
     for (size_t k = 0; rc == SY_OK && k < s->n; k++) {
         size_t g = s->group[k];
-        double b = bopt[g], xhi = log(reference_damping(c, g) * B_RANGE);
+        double b = bopt[g], xhi = log(reference_damping(c, g) * B_RANGE), vmax = 0;
         int limited = 0;
         c->group = g;
-        if (isfinite(c->m->max_stroke)) {
-            /* Stroke 4 sqrt(Hs^2 v) <= limit  <=>  v <= limit^2 / (16 Hs^2). */
-            c->limit_v = c->m->max_stroke * c->m->max_stroke / (16.0 * s->hs2[k]);
-            if (group_stroke_fn(log(b), c) > 0) {
-                limited = 1;
-                double x = xhi;
-                if (group_stroke_fn(xhi, c) <= 0) /* else even the largest damping exceeds it: flagged */
-                    rc = root(&stroke, log(b), xhi, &x, c->err);
-                b = exp(x);
-            }
+        for (size_t q = 0; q < nd; q++)
+            vmax = fmax(vmax, gv[g * nd + q]);
+        /* Stroke 4 sqrt(Hs^2 v) <= limit  <=>  v <= limit^2 / (16 Hs^2). */
+        c->limit_v = c->m->max_stroke * c->m->max_stroke / (16.0 * s->hs2[k]);
+        if (isfinite(c->m->max_stroke) && vmax > c->limit_v) {
+            limited = 1;
+            double x = xhi;
+            if (group_stroke_fn(xhi, c) <= 0) /* else even the largest damping exceeds it: flagged */
+                rc = root(&stroke, log(b), xhi, &x, c->err);
+            if (rc != SY_OK)
+                break;
+            b = exp(x);
+            group_modal(c, &c->full, g, b);
+            group_iso(c, g, b, iso);
+        } else {
+            memcpy(c->pdev, c->gp + g * nd, nd * sizeof *c->pdev);
+            memcpy(c->vdev, gv + g * nd, nd * sizeof *c->vdev);
+            memcpy(iso, gi + g * nd, nd * sizeof *iso);
         }
-        if (rc != SY_OK)
-            break;
-        /* Isolated devices at the same damping in the same sea. */
-        memset(iso, 0, nd * sizeof *iso);
-        double complex sc;
-        for (size_t ih = 0; ih < c->nh; ih++) {
-            double d = s->dir[g * c->nh + ih];
-            for (size_t io = 0; d > 0 && io < c->no; io++) {
-                double a2 = s->hs2[k] * s->amp2[g * c->no + io] * d, p;
-                for (size_t q = 0; a2 > 0 && q < nd; q++) {
-                    sy_dyn_modal_eval(c->iso_modal[c->iso_of[q]], io, ih, b, &sc, &p, NULL);
-                    iso[q] += a2 * p;
-                }
-            }
-        }
-        group_modal(c, g, b);
         scale(c->pdev, nd, s->hs2[k]);
         scale(c->vdev, nd, s->hs2[k]);
+        scale(iso, nd, s->hs2[k]);
         store_bin(c, r, SY_TUNING_PER_SEA_STATE, k, iso, b, limited);
     }
     free(iso);
@@ -418,14 +489,11 @@ static int strategy_bound(ctx *c, sy_yield_result *r)
     }
     for (size_t g = 0; rc == SY_OK && g < s->n_groups; g++) {
         double pa = 0, pi = 0;
-        for (size_t ih = 0; ih < nh; ih++) {
-            double d = s->dir[g * nh + ih];
-            for (size_t io = 0; d > 0 && io < no; io++) {
-                double a2 = s->amp2[g * no + io] * d;
-                pa += a2 * arr[io * nh + ih];
-                for (size_t q = 0; q < nd; q++)
-                    pi += a2 * iso[(c->iso_of[q] * no + io) * nh + ih];
-            }
+        for (size_t j = c->full.start[g]; j < c->full.start[g + 1]; j++) {
+            size_t io = c->full.io[j], ih = c->full.ih[j];
+            pa += c->full.a2[j] * arr[io * nh + ih];
+            for (size_t q = 0; q < nd; q++)
+                pi += c->full.a2[j] * iso[(c->iso_of[q] * no + io) * nh + ih];
         }
         ga[2 * g] = pa, ga[2 * g + 1] = pi;
     }
@@ -549,6 +617,8 @@ static void ctx_free(ctx *c)
     free(c->tab_v);
     free(c->tab_ip);
     free(c->gp);
+    free_cells(&c->full);
+    free_cells(&c->search);
     syi_yield_seas_free((syi_yield_seas *)c->seas);
 }
 
@@ -606,6 +676,10 @@ int sy_yield_compute(sy_yield_result **out, const sy_model *m, const sy_climate_
             !c.tab_ip || !c.gp || !c.iso_db || !c.iso_of || !c.iso_model || !c.iso_plan || !c.iso_work || !c.iso_modal)
             rc = sy_error_set(err, SY_ENOMEM, "yield workspace for %zu devices", nd);
     }
+    if (rc == SY_OK)
+        rc = build_cells(&c, CELL_FLOOR, &c.full, err);
+    if (rc == SY_OK)
+        rc = build_cells(&c, SEARCH_FLOOR, &c.search, err);
     if (rc == SY_OK)
         rc = sy_dyn_modal_create(&c.modal, c.plan, m->pto_stiffness, err);
     /* Distinct isolated devices: one plan and modal response each. */

@@ -36,6 +36,7 @@ void syi_yield_seas_free(syi_yield_seas *s)
     free(s->amp2);
     free(s->dir);
     free(s->omega_e);
+    free(s->resource_unit);
     free(s);
 }
 
@@ -64,9 +65,10 @@ int syi_yield_seas_create(syi_yield_seas **out, const sy_model *m, const sy_clim
         s->amp2 = malloc(ng_max * no * sizeof *s->amp2);
         s->dir = malloc(ng_max * nh * sizeof *s->dir);
         s->omega_e = malloc(ng_max * sizeof *s->omega_e);
+        s->resource_unit = malloc(ng_max * sizeof *s->resource_unit);
     }
     if (s == NULL || gid == NULL || !s->bin || !s->group || !s->hs2 || !s->hours || !s->resource || !s->amp2 ||
-        !s->dir || !s->omega_e) {
+        !s->dir || !s->omega_e || !s->resource_unit) {
         syi_yield_seas_free(s);
         free(gid);
         return sy_error_set(err, SY_ENOMEM, "sea states for %zu bins", n);
@@ -86,8 +88,8 @@ int syi_yield_seas_create(syi_yield_seas **out, const sy_model *m, const sy_clim
                 double hs = 0.5 * (bins->hs_edges[ih] + bins->hs_edges[ih + 1]);
                 double per = 0.5 * (bins->period_edges[ip] + bins->period_edges[ip + 1]);
                 size_t pg = ip * nd + id;
-                sy_sea_spectrum sp;
                 if (gid[pg] == (size_t)-1) {
+                    sy_sea_spectrum sp;
                     /* New group: the unit-Hs spectrum on the cells and the spread on the headings. */
                     size_t g = s->n_groups;
                     double outside, dout, beta = 0.0; /* no direction anywhere: toward +x */
@@ -95,6 +97,8 @@ int syi_yield_seas_create(syi_yield_seas **out, const sy_model *m, const sy_clim
                     rc = spectrum(m, bins->period, 1.0, per, &sp, err);
                     if (rc == SY_OK)
                         rc = sy_sea_spectrum_cells(&sp, omega, no, s->amp2 + g * no, &outside, err);
+                    if (rc == SY_OK) /* J also scales with Hs^2 */
+                        rc = sy_sea_spectrum_power(&sp, m->rho, m->g, m->depth, &s->resource_unit[g], err);
                     if (rc == SY_OK && !isnan(from))
                         rc = sy_climate_heading(from, bearing, &beta, err);
                     sy_sea_spreading spr;
@@ -111,11 +115,7 @@ int syi_yield_seas_create(syi_yield_seas **out, const sy_model *m, const sy_clim
                     s->max_dir_outside = fmax(s->max_dir_outside, dout);
                     gid[pg] = s->n_groups++;
                 }
-                rc = spectrum(m, bins->period, hs, per, &sp, err);
-                if (rc == SY_OK)
-                    rc = sy_sea_spectrum_power(&sp, m->rho, m->g, m->depth, &s->resource[k], err);
-                if (rc != SY_OK)
-                    break;
+                s->resource[k] = hs * hs * s->resource_unit[gid[pg]];
                 s->bin[k] = idx;
                 s->group[k] = gid[pg];
                 s->hs2[k] = hs * hs;

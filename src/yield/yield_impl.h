@@ -21,6 +21,7 @@ typedef struct syi_yield_seas {
     double *amp2;           /* [n_groups][n_omega] 2 E_i per unit Hs^2: amplitude^2 of cell i / Hs^2 */
     double *dir;            /* [n_groups][n_headings] D_j, fraction of the spread on heading j */
     double *omega_e;        /* [n_groups] 2 pi / Te of the group's spectrum, rad/s */
+    double *resource_unit;  /* [n_groups] J per unit Hs^2, W/m^3 */
     double max_outside, max_dir_outside;
 } syi_yield_seas;
 

@@ -74,7 +74,7 @@ static const struct {
     {"[site]\ndepth = 30\ndepth = 31\n", NULL, NULL, NULL, "p.ini:3: key 'depth' repeated in [site] (first on line 2)"},
     {"[site]\ndepth = thirty\n", NULL, NULL, NULL, "p.ini:2: [site] depth = 'thirty' is not a number"},
     {"[site]\ndepth = nan\n", NULL, NULL, NULL, "'nan' is not a number"},
-    {"[site]\ndepth = 30\n[sites]\nx = 1\n", NULL, NULL, NULL, "p.ini:4: unknown section '[sites]'"},
+    {"[site]\ndepth = 30\n[sites]\nx = 1\n", NULL, NULL, NULL, "p.ini:3: unknown section '[sites]'"},
     {"[site]\n", NULL, NULL, NULL, "missing key 'depth' in [site]"},
     {"[site]\ndepth 30\n", NULL, NULL, NULL, "p.ini:2: expected 'key = value' or '[section]'"},
     {NULL, "[device]\nshape = float\nradius = 3\ndraft = 30\n", NULL, NULL, "p.ini:6: [device] draft must be < [site] depth 30 m"},

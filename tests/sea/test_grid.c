@@ -40,8 +40,8 @@ int main(void)
     sy_check_close(sum, hi - lo, 1e-13, 0, "weights tile the cells");
     /* Exact for linear f on [w0, w_{n-1}] plus the two half end cells taken at the end values. */
     double h0 = 0.5 * (w[1] - w[0]), h1 = 0.5 * (w[n - 1] - w[n - 2]);
-    double want = (3 * (w[n - 1] - w[0]) - (w[n - 1] * w[n - 1] - w[0] * w[0])) + h0 * (3 - 2 * w[0]) +
-                  h1 * (3 - 2 * w[n - 1]);
+    double want = (3 * (w[n - 1] - w[0]) - (w[n - 1] * w[n - 1] - w[0] * w[0])) +
+                  h0 * (3 - 2 * w[0]) + h1 * (3 - 2 * w[n - 1]);
     sy_check_close(lin, want, 1e-12, 0, "linear function: trapezoid inside plus end half cells");
 
     /* Sampled JONSWAP on the geometric grid vs its exact moments. Step 0.2 % of omega:
@@ -66,9 +66,11 @@ int main(void)
     for (int k = -2; k <= 2; k++)
         sy_check_close(got.mf[k + 2], got.m[k + 2] * pow(2 * PI, -k), 4 * DBL_EPSILON, 0,
                        "frequency moment m_%d = (2 pi)^-n angular moment (references.md 2.2)", k);
-    sy_check_close(ref.te, 2 * PI * ref.m[1] / ref.m[2], 1e-14, 0, "Te = 2 pi m_-1/m_0 in angular moments");
+    sy_check_close(ref.te, 2 * PI * ref.m[1] / ref.m[2], 1e-14, 0,
+                   "Te = 2 pi m_-1/m_0 in angular moments");
     sy_check_close(ref.te, ref.mf[1] / ref.mf[2], 1e-14, 0, "Te = m_-1/m_0 in frequency moments");
-    sy_check_close(ref.tz, sqrt(ref.mf[2] / ref.mf[4]), 1e-14, 0, "Tz = sqrt(m0/m2) in frequency moments");
+    sy_check_close(ref.tz, sqrt(ref.mf[2] / ref.mf[4]), 1e-14, 0,
+                   "Tz = sqrt(m0/m2) in frequency moments");
 
     /* Exact cell energies: sum E + outside m0 = m0; E_i ~ S(w_i) dw_i on this fine grid. */
     double out;
@@ -78,7 +80,8 @@ int main(void)
         sumE += E[i];
         worstE = fmax(worstE, fabs(E[i] - S[i] * dw[i]) / m0);
     }
-    sy_check_close(sumE + out * m0, m0, 1e-11, 0, "cell energies + outside = m0 (outside %.3g)", out);
+    sy_check_close(sumE + out * m0, m0, 1e-11, 0, "cell energies + outside = m0 (outside %.3g)",
+                   out);
     sy_check_close(worstE, 0, 0, 1e-6, "cell energy ~ S dOmega on a 0.2 %% grid (share of m0)");
     /* PM cells in closed form vs JONSWAP gamma 1 cells by quadrature. */
     sy_sea_spectrum pm, j1;
@@ -87,7 +90,8 @@ int main(void)
     sy_check_ok(sy_sea_spectrum_init(&pm, &spm, &err), &err, "pm");
     sy_check_ok(sy_sea_spectrum_init(&j1, &sj1, &err), &err, "j1");
     double Ep[20], Ej[20], op, oj;
-    const double coarse[20] = {0.5, 0.6, 0.7, 0.8, 0.85, 0.9, 0.95, 1.0, 1.05, 1.1, 1.2, 1.3, 1.4, 1.6, 1.8, 2.0, 2.3, 2.6, 3.0, 3.5};
+    const double coarse[20] = {0.5, 0.6, 0.7, 0.8, 0.85, 0.9, 0.95, 1.0, 1.05, 1.1,
+                               1.2, 1.3, 1.4, 1.6, 1.8,  2.0, 2.3,  2.6, 3.0,  3.5};
     sy_check_ok(sy_sea_spectrum_cells(&pm, coarse, 20, Ep, &op, &err), &err, "pm cells");
     sy_check_ok(sy_sea_spectrum_cells(&j1, coarse, 20, Ej, &oj, &err), &err, "j1 cells");
     worst = 0;
@@ -106,10 +110,12 @@ int main(void)
     const double bad1[3] = {0.5, 0.4, 0.6}, bad2[2] = {0.0, 0.4}, bad3[1] = {0.5};
     sy_check_fails(sy_sea_omega_weights(bad1, 3, dw, NULL, NULL, &err), SY_EINVAL, &err,
                    "strictly increasing, got omega[1] = 0.4 after 0.5", "unsorted grid");
-    sy_check_fails(sy_sea_omega_weights(bad2, 2, dw, NULL, NULL, &err), SY_EINVAL, &err, "omega[0] must be finite and > 0",
-                   "zero frequency");
-    sy_check_fails(sy_sea_omega_weights(bad3, 1, dw, NULL, NULL, &err), SY_EINVAL, &err, "at least 2 points", "one point");
+    sy_check_fails(sy_sea_omega_weights(bad2, 2, dw, NULL, NULL, &err), SY_EINVAL, &err,
+                   "omega[0] must be finite and > 0", "zero frequency");
+    sy_check_fails(sy_sea_omega_weights(bad3, 1, dw, NULL, NULL, &err), SY_EINVAL, &err,
+                   "at least 2 points", "one point");
     S[3] = -1;
-    sy_check_fails(sy_sea_moments_sampled(w, S, n, &got, &err), SY_EINPUT, &err, "got S[3] = -1", "negative density");
+    sy_check_fails(sy_sea_moments_sampled(w, S, n, &got, &err), SY_EINPUT, &err, "got S[3] = -1",
+                   "negative density");
     return sy_check_summary();
 }

@@ -37,9 +37,11 @@ int main(void)
     sy_error err = SY_ERROR_INIT;
     /* references.md 3 table [computed: calc_03_spreading.py]: G(s) 10 decimals, sigma
      * 4 decimals in degrees, d 6 decimals. */
-    static const struct { double s, G, sigma_deg, d; } row[] = {
-        {1, 0.3183098862, 57.2958, 0.568310}, {2, 0.4244131816, 46.7818, 0.687011},
-        {5, 0.6467248481, 33.0797, 0.834343}, {10, 0.9032781269, 24.4310, 0.909105},
+    static const struct {
+        double s, G, sigma_deg, d;
+    } row[] = {
+        {1, 0.3183098862, 57.2958, 0.568310},  {2, 0.4244131816, 46.7818, 0.687011},
+        {5, 0.6467248481, 33.0797, 0.834343},  {10, 0.9032781269, 24.4310, 0.909105},
         {15, 1.1016893443, 20.2571, 0.937500}, {20, 1.2694749157, 17.6819, 0.952381},
     };
     for (size_t i = 0; i < sizeof row / sizeof row[0]; i++) {
@@ -47,16 +49,19 @@ int main(void)
         sy_sea_spreading d = make(s, 0.7);
         sy_check_close(d.norm, row[i].G, 0, 5e-11, "G(%g) (references.md 3)", s);
         /* Second closed form G = 2^(2s-1) Gamma(s+1)^2 / (pi Gamma(2s+1)) (references.md 3). */
-        sy_check_close(d.norm, pow(2, 2 * s - 1) * pow(tgamma(s + 1), 2) / (PI * tgamma(2 * s + 1)), 1e-13, 0,
-                       "G(%g) = duplication-formula form", s);
-        sy_check_close(sy_sea_spreading_sigma(&d) / DEG, row[i].sigma_deg, 0, 5e-5, "sigma(s = %g) deg (references.md 3)", s);
+        sy_check_close(d.norm, pow(2, 2 * s - 1) * pow(tgamma(s + 1), 2) / (PI * tgamma(2 * s + 1)),
+                       1e-13, 0, "G(%g) = duplication-formula form", s);
+        sy_check_close(sy_sea_spreading_sigma(&d) / DEG, row[i].sigma_deg, 0, 5e-5,
+                       "sigma(s = %g) deg (references.md 3)", s);
         double dc;
         sy_check_ok(sy_sea_spreading_directionality(&d, &dc, &err), &err, "directionality");
-        sy_check_close(dc, row[i].d, 0, 5e-7, "directionality coefficient s = %g (references.md 3, 5.3)", s);
+        sy_check_close(dc, row[i].d, 0, 5e-7,
+                       "directionality coefficient s = %g (references.md 3, 5.3)", s);
     }
     /* Spot value (references.md 3): s = 10, 30 deg off the mean: D = 0.4515408601 /rad. */
     sy_sea_spreading d10 = make(10, -2.0);
-    sy_check_close(sy_sea_spreading_eval(&d10, -2.0 + 30 * DEG), 0.4515408601, 0, 5e-11, "D(30 deg), s = 10 (references.md 3)");
+    sy_check_close(sy_sea_spreading_eval(&d10, -2.0 + 30 * DEG), 0.4515408601, 0, 5e-11,
+                   "D(30 deg), s = 10 (references.md 3)");
     sy_check_close(sy_sea_spreading_eval(&d10, -2.0 - 30 * DEG + 4 * PI), 0.4515408601, 0, 5e-11,
                    "D is 2 pi periodic and symmetric");
     /* Integrates to 1 (closed-form normalisation) and r1 = s/(s+1) (references.md 3), by
@@ -65,7 +70,8 @@ int main(void)
     const double ss[] = {0.5, 1, 2.5, 10, 75, 600};
     for (size_t i = 0; i < sizeof ss / sizeof ss[0]; i++) {
         sy_sea_spreading d = make(ss[i], 1.1);
-        sy_check_close(simpson(&d, 1.1 - PI, 1.1 + PI, 0, 40000), 1.0, 1e-12, 0, "int D = 1, s = %g", ss[i]);
+        sy_check_close(simpson(&d, 1.1 - PI, 1.1 + PI, 0, 40000), 1.0, 1e-12, 0,
+                       "int D = 1, s = %g", ss[i]);
         sy_check_close(simpson(&d, 1.1 - PI, 1.1 + PI, 1, 40000), ss[i] / (ss[i] + 1), 1e-12, 0,
                        "r1 = int D cos = s/(s+1), s = %g (references.md 3)", ss[i]);
     }
@@ -80,7 +86,8 @@ int main(void)
     double sum = 0, worst = 0;
     for (int j = 0; j < 24; j++) {
         sum += D[j];
-        worst = fmax(worst, fabs(D[j] - simpson(&d, beta[j] - 7.5 * DEG, beta[j] + 7.5 * DEG, 0, 2000)));
+        worst = fmax(worst,
+                     fabs(D[j] - simpson(&d, beta[j] - 7.5 * DEG, beta[j] + 7.5 * DEG, 0, 2000)));
     }
     sy_check_close(sum, 1, 8 * DBL_EPSILON, 0, "24 uniform headings: weights sum to 1");
     sy_check_close(out, 0, 0, 8 * DBL_EPSILON, "24 uniform headings: nothing outside");
@@ -94,7 +101,8 @@ int main(void)
     for (int j = 0; j < 11; j++)
         sum += D[j];
     sy_check_close(sum, 1, 8 * DBL_EPSILON, 0, "non-uniform circular list: weights sum to 1");
-    sy_check_close(D[0], simpson(&d, -5 * DEG, 5 * DEG, 0, 2000), 1e-12, 0, "wrap cell split at the gap mid-point");
+    sy_check_close(D[0], simpson(&d, -5 * DEG, 5 * DEG, 0, 2000), 1e-12, 0,
+                   "wrap cell split at the gap mid-point");
     /* Partial list 0..90 deg every 15 deg, mean 45 deg: cells [-7.5, 97.5] deg, the rest
      * outside; symmetric weights. */
     sy_sea_spreading d45 = make(4.2, 45 * DEG);
@@ -105,7 +113,8 @@ int main(void)
     for (int j = 0; j < 7; j++)
         sum += D[j];
     double inside = simpson(&d45, -7.5 * DEG, 97.5 * DEG, 0, 20000);
-    sy_check_close(sum, inside, 1e-12, 0, "partial list: sum = Simpson integral over the covered arc");
+    sy_check_close(sum, inside, 1e-12, 0,
+                   "partial list: sum = Simpson integral over the covered arc");
     sy_check_close(out, 1 - inside, 1e-11, 0, "partial list: outside fraction (%.6f)", out);
     sy_check_close(D[1], D[5], 1e-13, 0, "partial list symmetric about the mean (15 vs 75 deg)");
     /* One heading: the whole circle. Long-crested: all energy in the cell of theta0. */
@@ -113,9 +122,11 @@ int main(void)
     sy_check_close(D[0], 1, 8 * DBL_EPSILON, 0, "one heading takes weight 1");
     sy_sea_spreading lc = make(0, 50 * DEG);
     sy_check_ok(sy_sea_spreading_weights(&lc, beta, 7, D, &out, &err), &err, "long-crested");
-    sy_check_true(D[3] == 1 && D[2] == 0 && D[4] == 0 && out == 0, "long-crested: weight 1 at 45 deg (cell 37.5..52.5)");
+    sy_check_true(D[3] == 1 && D[2] == 0 && D[4] == 0 && out == 0,
+                  "long-crested: weight 1 at 45 deg (cell 37.5..52.5)");
     sy_sea_spreading lc2 = make(0, 200 * DEG);
-    sy_check_ok(sy_sea_spreading_weights(&lc2, beta, 7, D, &out, &err), &err, "long-crested outside");
+    sy_check_ok(sy_sea_spreading_weights(&lc2, beta, 7, D, &out, &err), &err,
+                "long-crested outside");
     sy_check_true(out == 1, "long-crested mean outside the headings: outside = 1");
     double dc;
     sy_check_ok(sy_sea_spreading_directionality(&lc, &dc, &err), &err, "lc d");
@@ -142,18 +153,21 @@ int main(void)
     double one = 1;
     sy_check_close(sy_sea_power_directional(3.0, &beta[300], &one, 1, beta[300]), 3.0, 0, 0,
                    "long-crested: J_theta = J at the heading");
-    sy_check_close(sy_sea_power_directional(3.0, &beta[300], &one, 1, beta[300] + 100 * DEG), 0.0, 0, 0,
-                   "J_theta = 0 beyond 90 deg (delta_j)");
+    sy_check_close(sy_sea_power_directional(3.0, &beta[300], &one, 1, beta[300] + 100 * DEG), 0.0,
+                   0, 0, "J_theta = 0 beyond 90 deg (delta_j)");
 
     /* Bad input. */
     sy_sea_spreading bad;
-    sy_check_fails(sy_sea_spreading_init(&bad, -1, 0, &err), SY_EINPUT, &err, "s must be in [0, 1000]", "s < 0");
-    sy_check_fails(sy_sea_spreading_init(&bad, 2000, 0, &err), SY_EINPUT, &err, "got 2000", "s too large");
-    sy_check_fails(sy_sea_spreading_init(&bad, 2, NAN, &err), SY_EINPUT, &err, "direction must be finite", "NaN theta0");
+    sy_check_fails(sy_sea_spreading_init(&bad, -1, 0, &err), SY_EINPUT, &err,
+                   "s must be in [0, 1000]", "s < 0");
+    sy_check_fails(sy_sea_spreading_init(&bad, 2000, 0, &err), SY_EINPUT, &err, "got 2000",
+                   "s too large");
+    sy_check_fails(sy_sea_spreading_init(&bad, 2, NAN, &err), SY_EINPUT, &err,
+                   "direction must be finite", "NaN theta0");
     const double unsorted[3] = {0, 1, 0.5}, wide[2] = {0, 7};
     sy_check_fails(sy_sea_spreading_weights(&d, unsorted, 3, D, &out, &err), SY_EINVAL, &err,
                    "strictly increasing, got beta[2] = 0.5", "unsorted headings");
-    sy_check_fails(sy_sea_spreading_weights(&d, wide, 2, D, &out, &err), SY_EINVAL, &err, "span less than 2 pi",
-                   "span >= 2 pi");
+    sy_check_fails(sy_sea_spreading_weights(&d, wide, 2, D, &out, &err), SY_EINVAL, &err,
+                   "span less than 2 pi", "span >= 2 pi");
     return sy_check_summary();
 }
