@@ -165,9 +165,9 @@ int main(void)
         sy_check_true(last_change < 1e-9, "M = 12 -> 16 change %.3g < 1e-9", last_change);
     }
     /* --- Line-array near-trapping (section 9, Maniar & Newman type: a/d = 1/2, spacing 2d,
-     * waves along the line): peak of |Fx(middle)|/F0 and its kd for N = 5, 11 [computed:
-     * calc_08b_linearray_peaks.py], also N = 25 and 51. Coarse scan, then golden-section refinement in kd
-     * (the note in section 9: the peak is narrow; refine, do not trust a fixed grid).
+     * waves along the line): peak of |Fx(middle)|/F0 and its kd for N = 5, 11, 25, 51
+     * [computed: calc_08b_linearray_peaks.py]. Coarse scan, then golden-section refinement
+     * in kd (the note in section 9: the peak is narrow; refine, do not trust a fixed grid).
      * Table digits: peak 5 significant (atol 6e-5), kd 7 (atol 6e-7; golden section to 1e-9). */
     {
         struct {
