@@ -2,7 +2,8 @@
  * of orders 0..20, and real orders, at real arguments (GSL path) and complex arguments
  * (double-complex fast path, Arb outside its range) of small, moderate and large
  * modulus. Complex arguments sit just below the real axis, as k r does for a decaying
- * complex frequency (conventions.md), plus two further away. Prints microseconds per call; record figures in docs/benchmarks.md. */
+ * complex frequency (conventions.md; 310 - 0.4i takes the large-argument Hankel path),
+ * plus two further away. Prints microseconds per call; record figures in docs/benchmarks.md. */
 #include <complex.h>
 #include "swellyield/special.h"
 
@@ -63,7 +64,7 @@ int main(void)
 {
     sy_init();
     const double complex zs[] = {0.37, 5.3, 47.5, 0.37 - 0.01 * I, 5.3 - 0.02 * I,
-                                 47.5 - 0.3 * I, 12.7 - 1.9 * I, 0.4 + 3.1 * I};
+                                 47.5 - 0.3 * I, 310.0 - 0.4 * I, 12.7 - 1.9 * I, 0.4 + 3.1 * I};
     size_t nz = sizeof zs / sizeof zs[0];
     printf("bench_special: microseconds per call (z real -> GSL; complex -> double-complex fast path, Arb where it declines)\n");
     printf("%-26s", "function \\ z");

@@ -66,11 +66,10 @@ static int modes(const syi_float_plan *fp, const sy_wave_roots *roots, syi_float
             if (rc != SY_OK)
                 break;
             double complex th = (1.0 - e2) / den;                 /* tanh(k h) */
-            double complex sh = (ed - eh) / den, ch = (ed + eh) / den; /* sinh, cosh(kb)/cosh(kh) */
-            g[P] = th / k;                      /* extended wall functions, float_impl.h */
+            double complex ch = (ed + eh) / den;                  /* cosh(k b) / cosh(k h) */
+            /* extended wall functions (float_impl.h): int Z_0 dz, int max(z, -d) Z_0 dz */
+            g[P] = th / k;
             g[P + 1] = -(1.0 - ch) / (k * k);
-            (void)sh;
-            (void)d;
             w->norm[q] = th / (2.0 * k) + 2.0 * h * e2 / (den * den);
             double complex x2 = k * a;
             rc = sy_special_hankel1_array((int)M + 1, x2, v, err);

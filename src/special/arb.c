@@ -23,6 +23,18 @@
 #define SYI_ARB_START_PREC 64
 #define SYI_ARB_MAX_PREC 4096
 
+/* r = s i x (s = +-1). Exact; written as a product because GCC 12's object-size
+ * checks misfire on the inline acb_mul_onei/acb_div_onei under the sanitizers
+ * (-Wstringop-overread in acb.h). */
+static void mul_i(acb_t r, const acb_t x, int s, slong prec)
+{
+    acb_t u;
+    acb_init(u);
+    acb_set_si_si(u, 0, s);
+    acb_mul(r, x, u, prec);
+    acb_clear(u);
+}
+
 /* res = kind(nu, z) at working precision prec (Arb's principal branches). */
 static void eval(acb_t res, syi_bessel_kind kind, const acb_t nu, const acb_t z, slong prec)
 {
@@ -47,9 +59,9 @@ static void eval(acb_t res, syi_bessel_kind kind, const acb_t nu, const acb_t z,
         acb_init(t);
         if (re_pos || (h1 ? im_sgn > 0 : im_sgn < 0)) {
             if (h1)
-                acb_div_onei(t, z); /* -iz */
+                mul_i(t, z, -1, prec); /* -iz */
             else
-                acb_mul_onei(t, z); /* iz */
+                mul_i(t, z, 1, prec); /* iz */
             acb_hypgeom_bessel_k(res, nu, t, prec);
             acb_mul_2exp_si(t, nu, -1); /* nu/2 */
             if (h1)
@@ -61,12 +73,12 @@ static void eval(acb_t res, syi_bessel_kind kind, const acb_t nu, const acb_t z,
             acb_mul_2exp_si(t, t, 1); /* 2/pi */
             acb_mul(res, res, t, prec);
             if (h1)
-                acb_div_onei(res, res); /* 2/(pi i) = -2i/pi */
+                mul_i(res, res, -1, prec); /* 2/(pi i) = -2i/pi */
             else
-                acb_mul_onei(res, res);
+                mul_i(res, res, 1, prec);
         } else {
             acb_hypgeom_bessel_jy(res, t, nu, z, prec);
-            acb_mul_onei(t, t);
+            mul_i(t, t, 1, prec);
             if (h1)
                 acb_add(res, res, t, prec);
             else

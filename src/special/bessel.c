@@ -317,10 +317,11 @@ static int order_nu(syi_bessel_kind kind, double nu, double complex z, double co
         /* GSL 2.7's Jnu and Inu_scaled are off by up to 7e-9 relative for orders near
          * 15.03, 17.03 (1e-10 near 39.99) at x <= 20 (measured against Arb; their
          * error estimates say 5e-15). The fast path (series, CF1 + CF2) is within
-         * 4e-15 there; for J its CF1 runs ~x steps and drifts to 2e-13 at x = 2e3,
-         * where GSL (asymptotic) is better, so J uses GSL beyond JNU_GSL_XMIN. I: fast
-         * path (2e-15) up to its range, GSL beyond. */
-        if ((kind != SYI_BESSEL_J || x <= JNU_GSL_XMIN) &&
+         * 4e-15 there; for J at x >= 50 with nu <= x/2 it uses the Hankel pair
+         * (~1e-15); in between (and for nu > x/2 beyond) its CF1 drifts like ~1e-16 x,
+         * where GSL is better, so J uses GSL there. I: fast path (2e-15) up to its
+         * range, GSL beyond. */
+        if ((kind != SYI_BESSEL_J || x <= JNU_GSL_XMIN || (x >= 50.0 && 2.0 * nu <= x)) &&
             syi_special_fast_nu(kind, nu, z, out) == SY_OK)
             return SY_OK;
         int rc = syi_special_gsl_nu(kind, nu, x, &v, err);

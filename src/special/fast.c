@@ -214,6 +214,20 @@ static int besselj(int nmax, double complex z, int which, const double complex *
     return SY_OK;
 }
 
+/* Large |z| near the real axis, all orders in the oscillatory range (n <= |z|/2): there
+ * CF1 would need ~|z| steps (slow, and its rounding drifts to ~1e-16 |z|), while the
+ * Hankel functions recur upward with little error growth. For Im z < 0 the H1
+ * recurrence picks up the J part with a factor ~e^{2|Im z|} (H2 likewise for Im z > 0),
+ * hence |Im z| <= LARGE_IM_MAX (factor e^2). J = (H1 + H2)/2 then carries an absolute
+ * error ~1e-16 |H|, the scale special.h states for J. */
+#define LARGE_Z_MIN 50.0
+#define LARGE_IM_MAX 1.0
+static int large_z(int nmax, double complex z)
+{
+    double az = cabs(z);
+    return az >= LARGE_Z_MIN && 2.0 * nmax <= az && fabs(cimag(z)) <= LARGE_IM_MAX;
+}
+
 int syi_special_fast_array(syi_bessel_kind kind, int nmax, double complex z,
                            double complex *out, double complex *scratch)
 {
@@ -241,13 +255,21 @@ int syi_special_fast_array(syi_bessel_kind kind, int nmax, double complex z,
         return SY_OK;
     }
     case SYI_BESSEL_J: {
+        if (large_z(nmax, z)) {
+            /* J = (H1 + H2) / 2 (DLMF 10.4.4), both by upward recurrence */
+            if (hankel(1, nmax, z, out) != SY_OK || hankel(-1, nmax, z, scratch) != SY_OK)
+                return SY_CONTINUE;
+            for (int n = 0; n <= nmax; n++)
+                out[n] = 0.5 * (out[n] + scratch[n]);
+            return SY_OK;
+        }
         int which = cimag(z) >= 0.0 ? 1 : -1;
         if (hankel(which, 1, z, h) != SY_OK)
             return SY_CONTINUE;
         return besselj(nmax, z, which, h, out, scratch);
     }
     case SYI_BESSEL_H1: {
-        if (cimag(z) >= 0.0)
+        if (cimag(z) >= 0.0 || large_z(nmax, z))
             return hankel(1, nmax, z, out);
         /* H1 = 2J - H2: H2 in scratch[0..max(nmax,1)], Miller's f after it. */
         int m = nmax < 1 ? 1 : nmax;
@@ -310,6 +332,20 @@ static int miller_nu(double mu, int m, double complex z, double sign, double com
     return SY_OK;
 }
 
+/* Hankel pair at orders mu, mu + 1 (0 <= mu < 1, |z| > KSERIES_MAX) from K (DLMF
+ * 10.27.8): H1_v(z) = (2/(pi i)) e^{-i v pi/2} K_v(-iz) (which = +1),
+ * H2_v(z) = (2i/pi) e^{i v pi/2} K_v(iz) (which = -1). */
+static int hankel_pair_nu(int which, double mu, double complex z, double complex h[2])
+{
+    double complex w = which > 0 ? -I * z : I * z, k[2];
+    if (cf2_scaled(mu, w, &k[0], &k[1]) != SY_OK)
+        return SY_CONTINUE;
+    double complex pre = (which > 0 ? 2.0 / (PI * I) : 2.0 * I / PI) * cexp(-w);
+    for (int j = 0; j < 2; j++)
+        h[j] = pre * cexp(-which * I * PI * (mu + j) / 2.0) * k[j];
+    return finite_c(h[0]) && finite_c(h[1]) ? SY_OK : SY_CONTINUE;
+}
+
 int syi_special_fast_nu(syi_bessel_kind kind, double nu, double complex z, double complex *out)
 {
     double az = cabs(z);
@@ -329,25 +365,34 @@ int syi_special_fast_nu(syi_bessel_kind kind, double nu, double complex z, doubl
     int m = (int)floor(nu);
     double mu = nu - m;
     double complex f[3], k[2];
-    if (miller_nu(mu, m, z, is_j ? -1.0 : 1.0, f) != SY_OK)
-        return SY_CONTINUE;
     if (!is_j) {
         /* I_mu K_{mu+1} + I_{mu+1} K_mu = 1/z (DLMF 10.28.2), scaled as in the arrays */
-        if (cf2_scaled(mu, z, &k[0], &k[1]) != SY_OK)
+        if (miller_nu(mu, m, z, 1.0, f) != SY_OK || cf2_scaled(mu, z, &k[0], &k[1]) != SY_OK)
             return SY_CONTINUE;
         *out = cexp(I * cimag(z)) / (z * (f[0] * k[1] + f[1] * k[0])) * f[2];
-    } else {
-        /* Hankel pair at orders mu, mu + 1 from K (DLMF 10.27.8):
-         * H1_v(z) = (2/(pi i)) e^{-i v pi/2} K_v(-iz) for Im z >= 0,
-         * H2_v(z) = (2i/pi) e^{i v pi/2} K_v(iz) for Im z < 0; then
-         * J_{mu+1} H_mu - J_mu H_{mu+1} = +-2i/(pi z) (DLMF 10.5.5). */
-        int which = cimag(z) >= 0.0 ? 1 : -1;
-        double complex w = which > 0 ? -I * z : I * z, h[2];
-        if (cf2_scaled(mu, w, &k[0], &k[1]) != SY_OK)
+    } else if (2.0 * nu <= az && az >= LARGE_Z_MIN && fabs(cimag(z)) <= LARGE_IM_MAX) {
+        /* as large_z(): J = (H1 + H2)/2, each recurred upward from mu, mu + 1 */
+        double complex h1[2], h2[2];
+        if (hankel_pair_nu(1, mu, z, h1) != SY_OK || hankel_pair_nu(-1, mu, z, h2) != SY_OK)
             return SY_CONTINUE;
-        double complex pre = (which > 0 ? 2.0 / (PI * I) : 2.0 * I / PI) * cexp(-w);
-        for (int j = 0; j < 2; j++)
-            h[j] = pre * cexp(-which * I * PI * (mu + j) / 2.0) * k[j];
+        double complex two_over_z = 2.0 / z;
+        for (int j = 1; j < m + 1; j++) {
+            double complex c = (mu + j) * two_over_z;
+            double complex n1 = c * h1[1] - h1[0], n2 = c * h2[1] - h2[0];
+            h1[0] = h1[1];
+            h1[1] = n1;
+            h2[0] = h2[1];
+            h2[1] = n2;
+        }
+        /* after m steps h[0] holds order mu + m = nu */
+        *out = 0.5 * (h1[0] + h2[0]);
+    } else {
+        /* J_{mu+1} H_mu - J_mu H_{mu+1} = +-2i/(pi z) (DLMF 10.5.5) with the Hankel
+         * function on the side where |J H| ~ 1/|z|. */
+        int which = cimag(z) >= 0.0 ? 1 : -1;
+        double complex h[2];
+        if (miller_nu(mu, m, z, -1.0, f) != SY_OK || hankel_pair_nu(which, mu, z, h) != SY_OK)
+            return SY_CONTINUE;
         *out = which * 2.0 * I / (PI * z * (f[1] * h[0] - f[0] * h[1])) * f[2];
     }
     return finite_c(*out) ? SY_OK : SY_CONTINUE;
