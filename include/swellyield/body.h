@@ -17,7 +17,10 @@
  *   Hhat_{0n}(r) = H^(1)_n(k_0 r),  Hhat_{qn}(r) = K_n(k_q r)        (q >= 1).
  * An incident potential phi = sum a_{qn} Z_q(z) Jhat_{qn}(r) e^{i n theta} is scattered
  * into sum b_{qn} Z_q Hhat_{qn} e^{i n theta}, with b_{qn} = sum_{q'} D_{|n|}(q, q') a_{q'n}
- * (axisymmetry: D is block diagonal in n and D_{-n} = D_n).
+ * (axisymmetry: D is block diagonal in n and only n >= 0 is stored; by mirror symmetry
+ * D_{-n}(q, q') = s_q(n) s_q'(n) D_n(q, q') with s_0(n) = (-1)^n (J_{-n} = (-1)^n J_n)
+ * and s_q(n) = 1 for q >= 1 (I_{-n} = I_n): the propagating/evanescent blocks change
+ * sign for odd n. The array module applies this; see src/array/solve.c dscaled()).
  *
  * Rigid modes j = 1..5 (surge, sway, heave, roll, pitch; index j-1 in arrays), rotations
  * about the centre of rotation (0, 0, z_rot). Velocity amplitude U_j of mode j radiates

@@ -8,7 +8,8 @@
  *   c_q(i, j) = K_0(kq (L - a_i)) / K_0(kq a_j)        (kq = (q - 1/2) pi / h, a lower
  * bound of the real evanescent root, so c_q is an upper bound; K_n(x')/K_n(x) with
  * x' > x decreases with n, so n = 0 is the largest). Modes with max(c_q(i,j), c_q(j,i))
- * below the tolerance are dropped for that pair; the count is reported. */
+ * below the tolerance are dropped for that pair; the count is reported. An array of
+ * columns only keeps q = 0: nothing there excites evanescent waves. */
 #include "array_impl.h"
 
 #include "swellyield/special.h"
@@ -49,6 +50,11 @@ static double k0_ratio(double xp, double x)
 static int layout(sy_array_plan *p, sy_error *err)
 {
     const size_t N = p->n_bodies, Q = p->Q;
+    /* Without floats nothing excites evanescent waves: the ambient wave is propagating
+     * and a column's D is diagonal in q, so only q = 0 is kept (not counted as dropped). */
+    int any_float = 0;
+    for (size_t i = 0; i < N; i++)
+        any_float |= p->types[p->bodies[i].type].geom.kind == SY_BODY_FLOAT;
     for (size_t i = 0; i < N; i++) {
         const sy_array_body *bi = &p->bodies[i];
         double ai = p->types[bi->type].geom.radius;
@@ -66,7 +72,7 @@ static int layout(sy_array_plan *p, sy_error *err)
             p->pair_L[i * N + j] = L;
             p->pair_alpha[i * N + j] = atan2(dy, dx);
             size_t nq = 1;
-            for (size_t q = 1; q < Q; q++) {
+            for (size_t q = 1; q < Q && any_float; q++) {
                 double kq = (q - 0.5) * SY_ARRAY_PI / p->set.h;
                 double c = fmax(k0_ratio(kq * (L - ai), kq * aj), k0_ratio(kq * (L - aj), kq * ai));
                 if (c < p->set.tolerance)
@@ -74,7 +80,7 @@ static int layout(sy_array_plan *p, sy_error *err)
                 nq = q + 1;
             }
             p->pair_nq[i * N + j] = nq;
-            if (j > i)
+            if (j > i && any_float)
                 p->dropped += Q - nq;
         }
     }

@@ -1,14 +1,19 @@
 /* Frequency sweep: sy_array_solve over many real frequencies, threads over frequencies
  * (OpenMP, the only file of the library with OpenMP pragmas; guarded by SY_HAVE_OPENMP).
- * Each thread allocates one work object; the plan is shared read-only. Inside a
- * parallel sweep the BLAS/LAPACK calls should run single-threaded (set
- * OPENBLAS_NUM_THREADS=1 or the equivalent in the program) to avoid oversubscription. */
+ * Each thread allocates one work object; the plan is shared read-only. With more than
+ * one sweep thread, OpenBLAS (the LAPACK the build links, cmake/SyLapacke.cmake) is set
+ * to one thread for the duration of the sweep and restored afterwards, so threads over
+ * frequencies do not also spawn BLAS threads (oversubscription); the setting is
+ * process-wide, so do not run BLAS work in other threads during a parallel sweep. */
 #include "array_impl.h"
 #include "sy_config.h"
 
 #include <stdlib.h>
 #if SY_HAVE_OPENMP
 #include <omp.h>
+/* OpenBLAS thread control (declared here to keep GSL's and OpenBLAS's cblas.h apart). */
+extern void openblas_set_num_threads(int n);
+extern int openblas_get_num_threads(void);
 #endif
 
 int sy_array_sweep(const sy_array_plan *plan, const double *omega, size_t n_omega,
@@ -21,6 +26,9 @@ int sy_array_sweep(const sy_array_plan *plan, const double *omega, size_t n_omeg
     sy_error first_err = SY_ERROR_INIT;
 #if SY_HAVE_OPENMP
     int nt = n_threads > 0 ? n_threads : omp_get_max_threads();
+    int blas_threads = openblas_get_num_threads();
+    if (nt > 1)
+        openblas_set_num_threads(1);
 #pragma omp parallel num_threads(nt)
 #else
     (void)n_threads;
@@ -49,6 +57,10 @@ int sy_array_sweep(const sy_array_plan *plan, const double *omega, size_t n_omeg
         }
         sy_array_work_free(w);
     }
+#if SY_HAVE_OPENMP
+    if (nt > 1)
+        openblas_set_num_threads(blas_threads);
+#endif
     if (first_rc != SY_OK) {
         if (err != NULL)
             *err = first_err;

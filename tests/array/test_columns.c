@@ -165,17 +165,18 @@ int main(void)
         sy_check_true(last_change < 1e-9, "M = 12 -> 16 change %.3g < 1e-9", last_change);
     }
     /* --- Line-array near-trapping (section 9, Maniar & Newman type: a/d = 1/2, spacing 2d,
-     * waves along the line): peak of |Fx(middle)|/F0 and its kd for N = 5 and 11 [computed:
-     * calc_08b_linearray_peaks.py]. Coarse scan, then golden-section refinement in kd
-     * (the note in section 9: the peak is narrow; refine, do not trust a fixed grid).
+     * waves along the line): peak of |Fx(middle)|/F0 and its kd for N = 5, 11, 25, 51
+     * [computed: calc_08b_linearray_peaks.py]. Coarse scan, then golden-section refinement
+     * in kd (the note in section 9: the peak is narrow; refine, do not trust a fixed grid).
      * Table digits: peak 5 significant (atol 6e-5), kd 7 (atol 6e-7; golden section to 1e-9). */
     {
         struct {
             size_t N;
-            double peak, kd, lo, hi;
-        } rows[] = {{5, 2.1283, 1.288973, 1.20, 1.38}, {11, 4.5015, 1.353413, 1.30, 1.385}};
+            double peak, kd, lo, hi, step;
+        } rows[] = {{5, 2.1283, 1.288973, 1.20, 1.38, 0.002}, {11, 4.5015, 1.353413, 1.30, 1.385, 0.002},
+                    {25, 8.8503, 1.381962, 1.37, 1.388, 0.001}, {51, 18.5727, 1.389003, 1.386, 1.3905, 0.0002}};
         const double d = 1.0, a = 0.5, beta = 0.0;
-        for (size_t r = 0; r < 2; r++) {
+        for (size_t r = 0; r < 4; r++) {
             size_t N = rows[r].N, mid = N / 2;
             double *xy = calloc(2 * N, sizeof *xy);
             for (size_t j = 0; j < N; j++)
@@ -186,18 +187,19 @@ int main(void)
                 unmake(&s);
                 continue;
             }
-            double f[64];
+            double f[128];
 #define FMID(kd) (solve_norm(&s, omega_of_k((kd) / d), a, 0, f, &err), f[2 * mid])
-            /* coarse scan with step 0.002 to find the bracket of the largest maximum */
-            double best = 0, kbest = rows[r].lo;
-            for (double kd = rows[r].lo; kd <= rows[r].hi; kd += 0.002) {
+            /* coarse scan to find the bracket of the largest maximum (finer for larger N:
+             * the main peak narrows) */
+            double best = 0, kbest = rows[r].lo, step = rows[r].step;
+            for (double kd = rows[r].lo; kd <= rows[r].hi; kd += step) {
                 double v = FMID(kd);
                 if (v > best) {
                     best = v;
                     kbest = kd;
                 }
             }
-            double x0 = kbest - 0.002, x3 = kbest + 0.002, gr = (sqrt(5.0) - 1) / 2;
+            double x0 = kbest - step, x3 = kbest + step, gr = (sqrt(5.0) - 1) / 2;
             double x1 = x3 - gr * (x3 - x0), x2 = x0 + gr * (x3 - x0);
             double f1 = FMID(x1), f2 = FMID(x2);
             while (x3 - x0 > 1e-9) {

@@ -176,6 +176,39 @@ int main(void)
         sy_array_plan_free(p1);
     }
 
+    /* --- Floats: the array impedance Z = B - i omega A at omega + i eps equals its
+     * real-axis Taylor expansion (the radiation path continued, not only the scattering). */
+    {
+        sy_array_type tf[2] = {{{SY_BODY_FLOAT, 2.0, 1.5, 0.0}, SY_ARRAY_HEAVE | SY_ARRAY_SURGE},
+                               {{SY_BODY_FLOAT, 1.2, 2.5, 0.0}, SY_ARRAY_HEAVE}};
+        sy_array_body bf[2] = {{0, 0, 0}, {6.1, 2.3, 1}};
+        sy_array_plan *pf = NULL;
+        sy_array_work *wf = NULL;
+        sy_array_hydro *z[4] = {0};
+        rc = sy_array_plan_create(&pf, &set, tf, 2, bf, 2, beta, 2, &err);
+        if (rc == SY_OK)
+            rc = sy_array_work_alloc(&wf, pf, &err);
+        for (int c = 0; c < 4 && rc == SY_OK; c++)
+            rc = sy_array_hydro_alloc(&z[c], pf, &err);
+        const double complex om4[4] = {om, om + d, om - d, om + I * eps};
+        for (int c = 0; c < 4 && rc == SY_OK; c++)
+            rc = sy_array_solve(pf, om4[c], wf, z[c], &err);
+        if (sy_check_ok(rc, &err, "float pair near omega = %g", om)) {
+            size_t n = z[0]->n_dof;
+            double zmax = 0;
+            for (size_t k = 0; k < n * n; k++)
+                zmax = fmax(zmax, cabs(z[0]->impedance[k]));
+            for (size_t k = 0; k < n * n; k++) {
+                double complex deriv = (z[1]->impedance[k] - z[2]->impedance[k]) / (2 * d);
+                sy_check_cclose(z[3]->impedance[k], z[0]->impedance[k] + I * eps * deriv, 0.0, 1e-6 * zmax,
+                                "float Z[%zu] at omega + i eps = Taylor expansion", k);
+            }
+        }
+        for (int c = 0; c < 4; c++)
+            sy_array_hydro_free(z[c]);
+        sy_array_work_free(wf);
+        sy_array_plan_free(pf);
+    }
     /* --- Sweep on threads equals serial solves (same code path per frequency). */
     {
         double omegas[5] = {0.6, 0.9, 1.2, 1.5, 1.8};

@@ -5,6 +5,7 @@
  *  - generalised Haskind relation B = k / (8 pi rho g cg) int X X^H dbeta
  *    (references.md section 7.1) to 1e-6 for 2, 3 (one a column) and 5 unequal bodies in
  *    irregular layouts, all five modes on some bodies;
+ *  - radiation: damping from the far-field energy flux equals the pressure-integral B;
  *  - fixed array (no motion): optical theorem int |A(theta)|^2 = -2 pi Re A(beta)
  *    (references.md section 9; energy is conserved by fixed lossless bodies);
  *  - two identical heaving bodies: the interaction damping approaches the point-absorber
@@ -167,6 +168,64 @@ int main(void)
             }
             unmake(&s);
         }
+    }
+    /* --- Far-field energy balance of the radiation problems: with every body's total
+     * outgoing propagating coefficients c_n^j for unit velocity of dof d (scattered beta
+     * plus the body's own radiated R), the far field is
+     *   A_d(theta) = sum_j e^{-ik(x_j cos + y_j sin)} sum_n c_n^j (-i)^n e^{i n theta}
+     * (H_n ~ sqrt(2/(pi k r)) e^{i(kr - n pi/2 - pi/4)}), and the mean radiated power
+     * through a large cylinder gives (Newman, Marine Hydrodynamics ch. 6, energy flux
+     * p v_r with p = i omega rho phi)
+     *   B_de = (2 omega rho / pi) int_{-h}^0 Z_0^2 dz  Re int A_d conj(A_e) dtheta.
+     * An independent route to B (far field) from the near-field pressure integral. */
+    {
+        setup s = {0};
+        const sy_array_body b[3] = {{0, 0, 0}, {13.2, -4.5, 1}, {3.1, 12.7, 2}};
+        double beta = 0.4;
+        if (sy_check_ok(make(&s, types, 3, b, 3, 8, 5, &beta, 1, &err), &err, "far-field plan") &&
+            sy_check_ok(sy_array_solve(s.plan, omega, s.work, s.res, &err), &err, "far-field solve")) {
+            const sy_array_plan *p = s.plan;
+            const size_t nth = 720, nrad = p->n_rad, nu = p->n_unknowns, nd = s.res->n_dof, Q = p->Q;
+            const long Ml = (long)p->M;
+            const double k = creal(s.res->k0), kh = k * DEPTH;
+            /* int Z_0^2 dz = (h/2 + sinh(2kh)/(4k)) / cosh^2(kh) */
+            const double iz2 = (DEPTH / 2 + sinh(2 * kh) / (4 * k)) / (cosh(kh) * cosh(kh));
+            double complex *far = calloc(nrad * nth, sizeof *far);
+            for (size_t r = 0; r < nrad; r++) {
+                size_t d = p->rad_dof[r], ib = p->dof_body[d];
+                int mode = p->dof_mode[d];
+                for (size_t it = 0; it < nth; it++) {
+                    double th = 2 * PI * it / nth;
+                    double complex A = 0;
+                    for (size_t j = 0; j < p->n_bodies; j++) {
+                        size_t tj = p->bodies[j].type;
+                        double complex e = cexp(-I * k * (p->bodies[j].x * cos(th) + p->bodies[j].y * sin(th)));
+                        for (long n = -Ml; n <= Ml; n++) {
+                            size_t u = p->unk_off[j] + (size_t)(n + Ml);
+                            double complex c = s.work->sol[(p->n_headings + r) * nu + u] /
+                                               syi_array_scale(p, s.work, tj, 0, n);
+                            if (j == ib)
+                                c += s.work->bwaves[tj]->radiation[((size_t)(mode - 1) * Q + 0) * p->nn + (size_t)(n + Ml)];
+                            A += e * c * cpow(-I, (double)n) * cexp(I * (double)n * th);
+                        }
+                    }
+                    far[r * nth + it] = A;
+                }
+            }
+            double bmax = maxabs(s.res->damping, nd * nd);
+            for (size_t r = 0; r < nrad; r++)
+                for (size_t q = 0; q < nrad; q++) {
+                    double complex acc = 0;
+                    for (size_t it = 0; it < nth; it++)
+                        acc += far[r * nth + it] * conj(far[q * nth + it]);
+                    double bff = 2 * omega * RHO / PI * iz2 * creal(acc) * 2 * PI / nth;
+                    size_t d = p->rad_dof[r], e = p->rad_dof[q];
+                    sy_check_close(bff, s.res->damping[d * nd + e], 0, 1e-6 * bmax,
+                                   "far-field energy flux B[%zu,%zu]", d, e);
+                }
+            free(far);
+        }
+        unmake(&s);
     }
     /* --- Fixed floats: optical theorem (energy conservation), 3 bodies, heading 0.4. */
     {

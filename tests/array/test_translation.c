@@ -38,13 +38,14 @@ int main(void)
 {
     sy_init();
     sy_error err = SY_ERROR_INIT;
-    /* Depth 4 m, unequal columns 2-3 radii apart: k_1..k_3 ~ 0.5, 1.3, 2.0 rad/m, so the
+    /* Depth 4 m, unequal bodies 2-3 radii apart: k_1..k_3 ~ 0.5, 1.3, 2.0 rad/m, so the
      * evanescent waves reach the neighbours with 1e-1..1e-3 of their size. */
     const double h = 4.0;
     const size_t M = 24, Q = 4;
     sy_array_settings set = {h, 1025.0, 9.81, 1e-12, M, Q, 0.0};
-    sy_array_type types[3] = {{{SY_BODY_COLUMN, 1.0, h, 0}, SY_ARRAY_SURGE},
-                              {{SY_BODY_COLUMN, 1.6, h, 0}, SY_ARRAY_SURGE},
+    /* floats (a column-only array keeps no evanescent modes); one column among them */
+    sy_array_type types[3] = {{{SY_BODY_FLOAT, 1.0, 0.8, 0}, SY_ARRAY_SURGE},
+                              {{SY_BODY_FLOAT, 1.6, 1.5, 0}, SY_ARRAY_HEAVE},
                               {{SY_BODY_COLUMN, 0.7, h, 0}, SY_ARRAY_SURGE}};
     sy_array_body bodies[4] = {{0.0, 0.0, 0}, {5.3, 1.1, 1}, {1.2, -4.1, 2}, {-3.9, 2.8, 1}};
     double beta = 0.3;
