@@ -37,6 +37,8 @@ extern "C" {
 #define SY_HYDRO_BLOCK 16
 #define SY_HYDRO_MAX_DEPTH 8
 #define SY_HYDRO_MIN_ORDER 4
+/* Largest interaction matrix (bytes, per thread) planned without an explicit setting. */
+#define SY_HYDRO_MAX_MATRIX_BYTES 4e9
 
 typedef void (*sy_hydro_progress)(void *ctx, size_t done, size_t total);
 

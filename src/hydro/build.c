@@ -51,7 +51,7 @@ static int db_from_results(sy_hydro_db *db, size_t first, sy_array_hydro **res, 
         memcpy(db->added_mass + io * nd * nd, res[i]->added_mass, nd * nd * sizeof(double));
         memcpy(db->damping + io * nd * nd, res[i]->damping, nd * nd * sizeof(double));
         memcpy(db->excitation + io * nh * nd, res[i]->excitation, nh * nd * sizeof(double complex));
-        db->convergence[io] = NAN; /* TODO(#4): per-frequency truncation estimate from the array solver */
+        db->convergence[io] = res[i]->convergence;
     }
     return SY_OK;
 }
@@ -68,12 +68,13 @@ int sy_hydro_plan_create(sy_array_plan **out, const sy_model *m, const sy_model_
     for (size_t b = 0; rc == SY_OK && b < n; b++) {
         const sy_model_device *d = &dev[b];
         size_t t;
-        for (t = 0; t < nt && !(types[t].geom.radius == d->radius && types[t].geom.draft == d->draft); t++)
+        double draft = m->shape == SY_SHAPE_FLOAT ? d->draft : m->depth; /* a column stands on the seabed */
+        for (t = 0; t < nt && !(types[t].geom.radius == d->radius && types[t].geom.draft == draft); t++)
             ;
         if (t == nt) {
             types[t].geom.kind = m->shape == SY_SHAPE_FLOAT ? SY_BODY_FLOAT : SY_BODY_COLUMN;
             types[t].geom.radius = d->radius;
-            types[t].geom.draft = m->shape == SY_SHAPE_FLOAT ? d->draft : m->depth;
+            types[t].geom.draft = draft;
             types[t].geom.z_rot = 0.0;
             types[t].modes = m->modes;
             nt++;
@@ -89,6 +90,13 @@ int sy_hydro_plan_create(sy_array_plan **out, const sy_model *m, const sy_model_
     sy_array_settings s = {m->depth, m->rho, m->g, m->tolerance,
                            m->orders ? m->orders : angular_order(m, a_max, l_min),
                            m->depth_modes ? m->depth_modes : depth_modes(m, gap), 1e-3};
+    /* Memory bound: one dense complex matrix of N (2M+1) Q unknowns per thread. */
+    double nu = (double)n * (double)(2 * s.n_order + 1) * (double)s.n_depth, bytes = 16.0 * nu * nu;
+    if (rc == SY_OK && bytes > SY_HYDRO_MAX_MATRIX_BYTES)
+        rc = sy_error_set(err, SY_ELIMIT,
+                          "%s: the interaction matrix of %zu bodies x %zu orders x %zu depth modes needs %.1f GB per thread "
+                          "(limit %.1f GB): set [solve] depth_modes or orders lower, or the tolerance looser",
+                          m->path, n, 2 * s.n_order + 1, s.n_depth, bytes / 1e9, SY_HYDRO_MAX_MATRIX_BYTES / 1e9);
     if (rc == SY_OK)
         rc = sy_array_plan_create(out, &s, types, nt, bodies, n, m->headings, m->n_headings, err);
     free(types);
