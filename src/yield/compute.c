@@ -31,6 +31,9 @@
  * group's energy (together < 1e-4 of it) are left out of the search, not of the results. */
 #define SEARCH_FLOOR 1e-7
 #define MAX_ITER 100
+/* A significant stroke within 0.1 % of max_stroke counts as meeting it: the limit itself
+ * is a screening value (yield.h), and the stroke search runs on the search cells. */
+#define STROKE_SLACK 1e-3
 
 const char *sy_yield_strategy_name(int s)
 {
@@ -260,11 +263,12 @@ static double group_power_fn(double x, void *p)
     return s;
 }
 
-/* Largest unit-Hs motion variance minus the bin's limit variance (decreasing in b). */
+/* Largest unit-Hs motion variance minus the bin's limit variance (decreasing in b), on
+ * the search cells: the limit is then met to ~1e-4, inside STROKE_SLACK. */
 static double group_stroke_fn(double x, void *p)
 {
     ctx *c = p;
-    group_modal(c, &c->full, c->group, exp(x));
+    group_modal(c, &c->search, c->group, exp(x));
     double v = 0;
     for (size_t q = 0; q < c->nd; q++)
         v = fmax(v, c->vdev[q]);
@@ -318,7 +322,7 @@ static void store_bin(const ctx *c, sy_yield_result *r, int st, size_t k, const 
         parr += pe;
         y->power_iso_dev[t * nd + q] = electrical(c->m, iso[q]);
         piso += y->power_iso_dev[t * nd + q];
-        if (y->stroke[t * nd + q] > c->m->max_stroke * (1 + LOGB_TOL))
+        if (y->stroke[t * nd + q] > c->m->max_stroke * (1 + STROKE_SLACK))
             limited = 2;
     }
     y->power_array[t] = parr;
