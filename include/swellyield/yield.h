@@ -68,11 +68,17 @@ typedef struct sy_yield_strategy {
     double capacity_factor; /* mean_power / (N rated), NAN without a rating */
     size_t n_stroke_exceeded; /* bins where the significant stroke exceeds max_stroke */
     double site_damping;    /* SITE_OPTIMAL: the b chosen; else NAN */
+    double *q_omega;        /* [n_omega][n_headings] regular-wave q-factor sum P / sum P_isolated
+                               at each frequency and heading (NAN for PER_SEA_STATE, whose
+                               damping depends on the sea state) */
 } sy_yield_strategy;
 
 typedef struct sy_yield_result {
     size_t n_bins;          /* bins of the climate table (all, zero occurrence included) */
     size_t n_devices;
+    size_t n_omega, n_headings;
+    double *omega;          /* [n_omega] rad/s, the run's grid */
+    double *headings;       /* [n_headings] rad */
     double *hours;          /* [n_bins] mean annual hours of each bin */
     double *resource;       /* [n_bins] wave power J per metre of crest at the site depth, W/m */
     double mean_resource;   /* occurrence-weighted mean J, W/m */

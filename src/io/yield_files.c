@@ -24,7 +24,7 @@ static int write_nc(const char *path, const sy_model *m, const sy_climate_table 
     if (buf == NULL)
         return sy_error_set(err, SY_ENOMEM, "%s: write buffer", path);
     SYI_NC(nc_create(path, NC_NETCDF4 | NC_CLOBBER, &nc), "create");
-    int d_st, d_dev, d_hs, d_p, d_dir, d_b2, d_name;
+    int d_st, d_dev, d_hs, d_p, d_dir, d_b2, d_name, d_om, d_hd;
     SYI_NC(nc_def_dim(nc, "strategy", ns, &d_st), "dimension strategy");
     SYI_NC(nc_def_dim(nc, "device", nd, &d_dev), "dimension device");
     SYI_NC(nc_def_dim(nc, "hs", nhs, &d_hs), "dimension hs");
@@ -32,6 +32,12 @@ static int write_nc(const char *path, const sy_model *m, const sy_climate_table 
     SYI_NC(nc_def_dim(nc, "direction", ndir, &d_dir), "dimension direction");
     SYI_NC(nc_def_dim(nc, "bounds2", 2, &d_b2), "dimension bounds2");
     SYI_NC(nc_def_dim(nc, "name_len", 64, &d_name), "dimension name_len");
+    SYI_NC(nc_def_dim(nc, "omega", r->n_omega, &d_om), "dimension omega");
+    SYI_NC(nc_def_dim(nc, "heading", r->n_headings, &d_hd), "dimension heading");
+    int v_om, v_hd, v_qo, s3[3] = {d_st, d_om, d_hd};
+    SYI_NC(syi_nc_def_double(nc, "omega", 1, &d_om, "rad s-1", "wave angular frequency", "angular_frequency", &v_om), "omega");
+    SYI_NC(syi_nc_def_double(nc, "heading", 1, &d_hd, "degree", "wave heading: direction of travel, counter-clockwise from the array +x axis", NULL, &v_hd), "heading");
+    SYI_NC(syi_nc_def_double(nc, "q_factor_regular", 3, s3, "1", "regular-wave q-factor (sum of device powers / sum of isolated powers) per frequency and heading; not defined for per_sea_state", NULL, &v_qo), "q_factor_regular");
     int v_hs, v_hsb, v_p, v_pb, v_dir, v_occ, v_res, v_pa, v_pi, v_q, v_bd, v_pd, v_sk, v_sn, v_dn, v_e, v_ea;
     int two[2] = {d_hs, d_b2};
     SYI_NC(syi_nc_def_double(nc, "hs", 1, &d_hs, "m", "significant wave height (Hm0) at bin centre", "sea_surface_wave_significant_height", &v_hs), "hs");
@@ -72,6 +78,17 @@ static int write_nc(const char *path, const sy_model *m, const sy_climate_table 
     snprintf(txt, sizeof txt, "swellyield %s (%s)", sy_version(), sy_dependency_versions());
     SYI_NC(syi_nc_put_text(nc, NC_GLOBAL, "software", txt), "attributes");
     SYI_NC(nc_enddef(nc), "enddef");
+    SYI_NC(nc_put_var_double(nc, v_om, r->omega), "omega");
+    {
+        double deg[SY_MODEL_MAX_HEADINGS];
+        for (size_t i = 0; i < r->n_headings && i < SY_MODEL_MAX_HEADINGS; i++)
+            deg[i] = r->headings[i] * 180.0 / M_PI;
+        SYI_NC(nc_put_var_double(nc, v_hd, deg), "heading");
+    }
+    for (size_t s = 0; s < ns; s++) {
+        size_t start[3] = {s, 0, 0}, count[3] = {1, r->n_omega, r->n_headings};
+        SYI_NC(nc_put_vara_double(nc, v_qo, start, count, r->s[s].q_omega), "q_factor_regular");
+    }
     for (size_t i = 0; i < nhs; i++) {
         buf[i] = 0.5 * (b->hs_edges[i] + b->hs_edges[i + 1]);
         buf[nhs + 2 * i] = b->hs_edges[i], buf[nhs + 2 * i + 1] = b->hs_edges[i + 1];

@@ -337,6 +337,12 @@ static void store_from_tables(ctx *c, sy_yield_result *r, int st, double *iso, d
 {
     const syi_yield_seas *s = c->seas;
     size_t nd = c->nd;
+    for (size_t i = 0; i < c->no * c->nh; i++) { /* q per frequency and heading */
+        double pa = 0, pi = 0;
+        for (size_t q = 0; q < nd; q++)
+            pa += c->tab_p[i * nd + q], pi += c->tab_ip[i * nd + q];
+        r->s[st].q_omega[i] = pa / pi;
+    }
     double *gv = c->gp + s->n_groups * nd, *gi = gv + s->n_groups * nd;
     for (size_t g = 0; g < s->n_groups; g++) {
         group_table(c, g, c->tab_p, 1.0, c->gp + g * nd);
@@ -502,6 +508,13 @@ static int strategy_bound(ctx *c, sy_yield_result *r)
         ga[2 * g] = pa, ga[2 * g + 1] = pi;
     }
     sy_yield_strategy *y = &r->s[SY_TUNING_REACTIVE_BOUND];
+    for (size_t io = 0; rc == SY_OK && io < no; io++)
+        for (size_t ih = 0; ih < nh; ih++) {
+            double pi = 0;
+            for (size_t q = 0; q < nd; q++)
+                pi += iso[(c->iso_of[q] * no + io) * nh + ih];
+            y->q_omega[io * nh + ih] = arr[io * nh + ih] / pi;
+        }
     for (size_t k = 0; rc == SY_OK && k < s->n; k++) {
         size_t t = s->bin[k], g = s->group[k];
         y->power_array[t] = c->m->efficiency * s->hs2[k] * ga[2 * g];
@@ -532,19 +545,30 @@ void sy_yield_result_free(sy_yield_result *r)
         free(y->stroke);
         free(y->stroke_limited);
         free(y->energy);
+        free(y->q_omega);
     }
+    free(r->omega);
+    free(r->headings);
     free(r);
 }
 
-static int result_alloc(sy_yield_result **out, size_t nt, size_t nd, sy_error *err)
+static int result_alloc(sy_yield_result **out, size_t nt, size_t nd, const sy_hydro_db *db, sy_error *err)
 {
     sy_yield_result *r = calloc(1, sizeof *r);
+    size_t ng = db->n_omega * db->n_headings;
     int ok = r != NULL;
     if (ok) {
-        r->n_bins = nt, r->n_devices = nd;
+        r->n_bins = nt, r->n_devices = nd, r->n_omega = db->n_omega, r->n_headings = db->n_headings;
+        r->omega = malloc(db->n_omega * sizeof *r->omega);
+        r->headings = malloc(db->n_headings * sizeof *r->headings);
+        ok = r->omega && r->headings;
+        if (ok) {
+            memcpy(r->omega, db->omega, db->n_omega * sizeof *r->omega);
+            memcpy(r->headings, db->headings, db->n_headings * sizeof *r->headings);
+        }
         r->hours = calloc(nt, sizeof *r->hours);
         r->resource = calloc(nt, sizeof *r->resource);
-        ok = r->hours && r->resource;
+        ok = ok && r->hours && r->resource;
         for (int st = 0; ok && st < SY_YIELD_N_STRATEGIES; st++) {
             sy_yield_strategy *y = &r->s[st];
             y->power = calloc(nt * nd, sizeof *y->power);
@@ -556,7 +580,10 @@ static int result_alloc(sy_yield_result **out, size_t nt, size_t nd, sy_error *e
             y->stroke = calloc(nt * nd, sizeof *y->stroke);
             y->stroke_limited = calloc(nt, sizeof *y->stroke_limited);
             y->energy = calloc(nd, sizeof *y->energy);
-            ok = y->power && y->power_array && y->power_iso && y->power_iso_dev && y->energy_iso_dev && y->damping && y->stroke && y->stroke_limited && y->energy;
+            y->q_omega = malloc(ng * sizeof *y->q_omega);
+            for (size_t i = 0; y->q_omega != NULL && i < ng; i++)
+                y->q_omega[i] = NAN;
+            ok = ok && y->q_omega && y->power && y->power_array && y->power_iso && y->power_iso_dev && y->energy_iso_dev && y->damping && y->stroke && y->stroke_limited && y->energy;
             y->site_damping = NAN;
             for (size_t t = 0; ok && t < nt; t++)
                 y->damping[t] = NAN;
@@ -709,7 +736,7 @@ int sy_yield_compute(sy_yield_result **out, const sy_model *m, const sy_climate_
             rc = sy_dyn_modal_create(&c.iso_modal[g], c.iso_plan[g], m->pto_stiffness, err);
     }
     if (rc == SY_OK)
-        rc = result_alloc(&r, sy_climate_table_size(climate), c.nd, err);
+        rc = result_alloc(&r, sy_climate_table_size(climate), c.nd, db, err);
     if (rc == SY_OK) {
         for (size_t k = 0; k < seas->n; k++) {
             r->hours[seas->bin[k]] = seas->hours[k];

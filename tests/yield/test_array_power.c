@@ -160,6 +160,39 @@ static double annual_q(double spacing)
     return q;
 }
 
+/* Two identical floats on the x axis in head seas: the mirror symmetry makes A11 = A22,
+ * B11 = B22, so heave decouples into the symmetric (1, 1) and antisymmetric (1, -1)
+ * combinations (group-theory reduction of a symmetric system); the cross terms decay
+ * with spacing like the far field of a wave source, ~ 1/sqrt(kL) (common practice). */
+static void pair_decoupling(void)
+{
+    double omega[1] = {0.9}, head = 0, cross[3], L[3] = {40, 160, 640};
+    double k;
+    sy_waves_wavenumber(omega[0], 50, G, &k, NULL);
+    for (int c = 0; c < 3; c++) {
+        double x[2] = {-L[c] / 2, L[c] / 2}, y[2] = {0, 0};
+        sy_model m;
+        sy_model_device dev[2];
+        model(&m, dev, 2, x, y, omega, 1, &head, 1);
+        sy_hydro_set *hs = NULL;
+        sy_error err = SY_ERROR_INIT;
+        cross[c] = NAN;
+        if (!sy_check_ok(sy_hydro_build(&hs, &m, 0, NULL, 1, NULL, NULL, &err), &err, "pair L = %g m: hydro", L[c]))
+            continue;
+        const double *A = hs->array->added_mass, *B = hs->array->damping;
+        sy_check_close(A[3], A[0], 1e-10, 0, "pair L = %g m: A11 = A22 (symmetric pair)", L[c]);
+        sy_check_close(B[3], B[0], 1e-10, 0, "pair L = %g m: B11 = B22", L[c]);
+        sy_check_close(A[1], A[2], 1e-10, 0, "pair L = %g m: A12 = A21", L[c]);
+        cross[c] = hypot(A[1] * omega[0], B[1]) / hypot(A[0] * omega[0], B[0]);
+        sy_hydro_set_free(hs);
+    }
+    /* Each fourfold spacing should roughly halve the coupling (1/sqrt(kL)); allow 1.5..3. */
+    for (int c = 1; c < 3; c++)
+        sy_check_true(cross[c - 1] / cross[c] > 1.5 && cross[c - 1] / cross[c] < 3.0,
+                      "coupling |Z12|/|Z11| falls like 1/sqrt(kL): %.4g at %g m -> %.4g at %g m (kL = %.0f)",
+                      cross[c - 1], L[c - 1], cross[c], L[c], k * L[c]);
+}
+
 int main(void)
 {
     sy_init();
@@ -169,6 +202,7 @@ int main(void)
     double x3[3] = {0, 31.0, 7.0}, y3[3] = {0, -6.0, 27.0};
     heading_average(3, x3, y3, "3 floats, irregular");
     mirror();
+    pair_decoupling();
     double q30 = annual_q(30), q300 = annual_q(300), q3000 = annual_q(3000);
     sy_check_true(fabs(q300 - 1) < fabs(q30 - 1) && fabs(q3000 - 1) < fabs(q300 - 1),
                   "annual q tends to 1 with spacing: %.4f (30 m), %.4f (300 m), %.4f (3000 m)", q30, q300, q3000);

@@ -178,11 +178,56 @@ static void resolution(void)
     sy_climate_table_free(t);
 }
 
+/* A narrowing spectrum approaches the regular wave of the same variance: with a^2/2 = m0,
+ * P -> a^2 p(omega_p) = (Hs^2 / 8) p(omega_p) (linear superposition; common practice).
+ * p(omega) here is the single-mode closed form for the synthetic coefficients. */
+static double p_unit(const sy_hydro_db *db, double w, double b)
+{
+    /* The synthetic shapes of make_db evaluated at any omega. */
+    double A = 1.4e5 + 3e4 * exp(-w * w), B = 8e4 * w * w * exp(-0.8 * w * w);
+    double X2 = B * 2 * 1025 * pow(9.81, 3) / pow(w, 3), m = 1025 * M_PI * 25 * 4, C = 1025 * 9.81 * M_PI * 25;
+    (void)db;
+    double re = C - w * w * (m + A), im = w * (B + b);
+    return 0.5 * w * w * b * X2 / (re * re + im * im);
+}
+
+static void narrow(void)
+{
+    sy_model m;
+    sy_model_device dev;
+    make_model(&m, &dev);
+    sy_hydro_db *db = make_db(801, 0.3, 2.3, 0);
+    const sy_hydro_db *iso[1] = {db};
+    sy_climate_table *t = one_bin(2.0, 8.0);
+    double gammas[4] = {1.0, 3.3, 7.0, 20.0}, err_prev = INFINITY;
+    for (int i = 0; i < 4 && db && t; i++) {
+        m.gamma = gammas[i];
+        sy_yield_result *r = NULL;
+        sy_error err = SY_ERROR_INIT;
+        sy_sea_spectrum_spec spec = {SY_SEA_JONSWAP, 2.0, 0, 8.0, 0, gammas[i], SY_SEA_NORM_EXACT};
+        sy_sea_spectrum sp;
+        if (sy_yield_compute(&r, &m, t, db, iso, &err) != SY_OK || sy_sea_spectrum_init(&sp, &spec, &err) != SY_OK) {
+            sy_check_ok(SY_EINVAL, &err, "narrow spectrum, gamma %g", gammas[i]);
+            sy_yield_result_free(r);
+            continue;
+        }
+        double reg = 4.0 / 8.0 * p_unit(db, sp.omega_p, 2e5), got = r->s[SY_TUNING_FIXED].power_array[0];
+        double rel = fabs(got - reg) / reg;
+        sy_check_true(rel < err_prev, "gamma %g: |P - P_regular| / P_regular = %.4f, smaller than for the wider spectrum",
+                      gammas[i], rel);
+        err_prev = rel;
+        sy_yield_result_free(r);
+    }
+    sy_hydro_db_free(db);
+    sy_climate_table_free(t);
+}
+
 int main(void)
 {
     sy_init();
     worked_example();
     passive_optimum();
     resolution();
+    narrow();
     return sy_check_summary();
 }
