@@ -129,6 +129,8 @@ int sy_cmd_run(int argc, char **argv)
         rc = sy_hydro_db_write(hs->array, path, &err);
     if (rc == SY_OK)
         rc = sy_outputs_write_yield(&st, m, cl, yr, &err);
+    if (rc == SY_OK) /* pictures and report.md (no poles or flagged bands in the main job yet) */
+        rc = sy_plot_run(st.stage, m, cl, hs->array, yr, NULL, NULL, 0, "png", &err);
     if (rc == SY_OK)
         rc = sy_outputs_commit(&st, &err);
     if (rc != SY_OK)

@@ -28,8 +28,8 @@ const char *sy_dependency_versions(void)
     static char buf[256];
     /* Written once; callers use it from the main thread (program --version, file
      * attributes). */
-    snprintf(buf, sizeof buf, "GSL %s, NetCDF %s, LAPACKE %s, OpenBLAS %s, inih %s, jansson %s, OpenMP %s",
+    snprintf(buf, sizeof buf, "GSL %s, NetCDF %s, LAPACKE %s, OpenBLAS %s, inih %s, jansson %s, PLplot %s, OpenMP %s",
              gsl_version, nc_inq_libvers(), SY_LAPACKE_VERSION, SY_OPENBLAS_VERSION,
-             SY_INIH_VERSION, SY_JANSSON_VERSION, SY_HAVE_OPENMP ? "on" : "off");
+             SY_INIH_VERSION, SY_JANSSON_VERSION, SY_PLPLOT_VERSION, SY_HAVE_OPENMP ? "on" : "off");
     return buf;
 }
