@@ -133,8 +133,8 @@ void syi_plot_colorbar(double x0, double x1, double y0, double y1, double lo, do
         plfill(4, xs, ys);
     }
     plcol0(SYI_PC_INK);
-    plbox("bc", 0.0, 0, "bcmstv", syi_plot_nice_step(hi - lo, 5), 0);
-    plmtex("r", 4.2, 0.5, 0.5, label);
+    plbox("bc", 0.0, 0, "bcmtv", syi_plot_nice_step(hi - lo, 5), 1);
+    plmtex("r", 5.2, 0.5, 0.5, label);
 }
 
 void syi_plot_labels(const char *xlabel, const char *ylabel, const char *title)

@@ -75,28 +75,33 @@ int syi_plot_layout(const char *dir, const char *ext, const sy_model *m, const s
         plarc(d->x, d->y, d->radius, d->radius, 0.0, 360.0, 0.0, 0);
         plptex(d->x, d->y - d->radius - 0.035 * (ymax - ymin), 1.0, 0.0, 0.5, d->name);
     }
-    /* Arrow: waves travel toward beta; drawn in the top-left corner, 14 % of the width. */
-    double L = 0.14 * (xmax - xmin), cx = xmin + 0.13 * (xmax - xmin), cy = ymax - 0.12 * (ymax - ymin);
-    double ux = cos(beta), uy = sin(beta);
-    PLFLT ax[2] = {cx - 0.5 * L * ux, cx + 0.5 * L * ux}, ay[2] = {cy - 0.5 * L * uy, cy + 0.5 * L * uy};
-    double hl = 0.3 * L, hw = 0.14 * L;
-    PLFLT hx[3] = {ax[1], ax[1] - hl * ux - hw * uy, ax[1] - hl * ux + hw * uy};
-    PLFLT hy[3] = {ay[1], ay[1] - hl * uy + hw * ux, ay[1] - hl * uy - hw * ux};
-    plcol0(SYI_PC_A);
-    plwidth(4.0);
-    ax[1] -= 0.8 * hl * ux, ay[1] -= 0.8 * hl * uy;
-    plline(2, ax, ay);
-    plwidth(1.5);
-    plfill(3, hx, hy);
-    plschr(0.0, 0.9);
-    char lab[64];
-    snprintf(lab, sizeof lab, "waves toward %.0f°", fmod(beta * 180.0 / M_PI + 360.0, 360.0));
-    plptex(cx - 0.5 * L, cy - 0.5 * L - 0.045 * (ymax - ymin), 1.0, 0.0, 0.0, lab);
-    plschr(0.0, 1.15);
     char title[160];
     snprintf(title, sizeof title, "Array layout (%zu devices), energy per device", n);
     syi_plot_labels("x (m)", "y (m)", title);
     syi_plot_subtitle(SYI_PC_MUTED, "to scale: circles of the device radius; colour: annual energy");
-    syi_plot_colorbar(0.83, 0.86, 0.20, 0.80, emin, emax, "annual energy, per_sea_state (MWh/yr)");
+    /* Compass inset beside the frame (never over a device), in the frame's orientation:
+     * an arrow toward beta, the direction the main waves travel. */
+    plvpas(0.78, 0.94, 0.66, 0.86, 1.0);
+    plwind(-1.3, 1.3, -1.3, 1.3);
+    plcol0(SYI_PC_GRID);
+    plarc(0.0, 0.0, 1.0, 1.0, 0.0, 360.0, 0.0, 0);
+    double ux = cos(beta), uy = sin(beta), hl = 0.55, hw = 0.28;
+    PLFLT ax[2] = {-0.9 * ux, (0.9 - 0.8 * hl) * ux}, ay[2] = {-0.9 * uy, (0.9 - 0.8 * hl) * uy};
+    PLFLT hx[3] = {0.9 * ux, (0.9 - hl) * ux - hw * uy, (0.9 - hl) * ux + hw * uy};
+    PLFLT hy[3] = {0.9 * uy, (0.9 - hl) * uy + hw * ux, (0.9 - hl) * uy - hw * ux};
+    plcol0(SYI_PC_A);
+    plwidth(4.0);
+    plline(2, ax, ay);
+    plwidth(1.5);
+    plfill(3, hx, hy);
+    double from = NAN;
+    sy_climate_from_direction(beta, m->x_axis_bearing * 180.0 / M_PI, &from, NULL);
+    char lab[64];
+    snprintf(lab, sizeof lab, "waves from %.0f°", from);
+    plschr(0.0, 0.95);
+    plcol0(SYI_PC_INK);
+    plmtex("b", 1.4, 0.5, 0.5, lab);
+    plschr(0.0, 1.15);
+    syi_plot_colorbar(0.83, 0.86, 0.12, 0.54, emin, emax, "annual energy (MWh/yr)");
     return syi_plot_end(&c, SY_OK, err);
 }

@@ -117,7 +117,7 @@ int syi_plot_matrix(const char *dir, const char *ext, const sy_model *m, const s
     snprintf(xl, sizeof xl, "%s (s)", b->period == SY_CLIMATE_TE ? "energy period T#de#u" : "peak period T#dp#u");
     syi_plot_labels(xl, "significant wave height H#ds#u (m)", title);
     syi_plot_subtitle(SYI_PC_A, "lines: occurrence, h/yr summed over directions");
-    syi_plot_colorbar(0.83, 0.86, 0.20, 0.80, 0.0, pmax, "array power (kW)");
+    syi_plot_colorbar(0.82, 0.85, 0.20, 0.80, 0.0, pmax, "array power (kW)");
     free(pw), free(occ), free(f);
     return syi_plot_end(&c, rc, err);
 }

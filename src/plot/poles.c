@@ -19,12 +19,12 @@ int syi_plot_poles(const char *dir, const char *ext, const sy_model *m, const sy
     if (!(y0 < 0) || !isfinite(y0))
         y0 = -0.1;
     double dx = 0.08 * (x1 - x0), dy = 0.12 * (y1 - y0);
-    x0 -= dx, x1 += dx, y0 -= dy, y1 += dy;
+    x0 -= dx, x1 += dx, y0 -= dy, y1 += 3.0 * dy; /* legend room above Im omega = 0 */
     syi_plot_canvas c;
     int rc = syi_plot_begin(&c, dir, "poles", ext, err);
     if (rc != SY_OK)
         return rc;
-    plvpor(0.11, 0.95, 0.12, 0.85);
+    plvpor(0.13, 0.95, 0.12, 0.85);
     plwind(x0, x1, y0, y1);
     plcol0(SYI_PC_GRID);
     plbox("g", syi_plot_nice_step(x1 - x0, 8), 0, "g", syi_plot_nice_step(y1 - y0, 6), 0);
@@ -58,10 +58,12 @@ int syi_plot_poles(const char *dir, const char *ext, const sy_model *m, const sy
     plssym(0.0, 1.0);
     plcol0(SYI_PC_INK);
     plbox("bcnst", syi_plot_nice_step(x1 - x0, 8), 0, "bcnstv", syi_plot_nice_step(y1 - y0, 6), 0);
+    syi_plot_legend_box(2, 0);
     syi_plot_legend_line(0, 0, SYI_PC_C, 1, "search region ([resonance])");
     syi_plot_legend_line(1, 0, SYI_PC_A, 0, "motion poles (dot size grows with Q)");
     char title[128];
     snprintf(title, sizeof title, "Array resonances: %zu poles in the complex frequency plane", p->n);
-    syi_plot_labels("Re #gw (rad/s)", "Im #gw (rad/s)", title);
+    syi_plot_labels("Re #gw (rad/s)", "", title);
+    plmtex("l", 5.2, 0.5, 0.5, "Im #gw (rad/s)");
     return syi_plot_end(&c, SY_OK, err);
 }

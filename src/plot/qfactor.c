@@ -11,8 +11,11 @@
 #include <plplot.h>
 #include <stdio.h>
 #include <stdlib.h>
+#include <string.h>
 
 #define MAX_SHOWN 3 /* more lines than this are hard to tell apart */
+#define MIRROR_TOL 1e-6 /* q curves this close (absolute) are drawn as one: q is O(1) and
+                           the solver's tolerance is >= 1e-10 relative */
 
 /* Headings (indices) in decreasing wave energy; shown = how many carry >= 10 % of the
  * largest (at most MAX_SHOWN), so a unidirectional site shows one. */
@@ -105,7 +108,7 @@ int syi_plot_qfactor(const char *dir, const char *ext, const sy_model *m, const 
                     ymin = fmin(ymin, v[k]), ymax = fmax(ymax, v[k]);
         }
     double pad = 0.08 * (ymax - ymin) + 0.02;
-    ymin = fmax(0.0, ymin - pad), ymax += pad + 0.15 * (double)shown * (ymax - ymin + pad); /* legend room */
+    ymin = fmax(0.0, ymin - pad), ymax += pad + 0.09 * (double)(shown + 2) * (ymax - ymin + pad); /* legend room */
     double x0 = r->omega[0], x1 = r->omega[no - 1];
     if (!(x1 > x0))
         x0 -= 0.1, x1 += 0.1;
@@ -131,18 +134,38 @@ int syi_plot_qfactor(const char *dir, const char *ext, const sy_model *m, const 
     plwidth(2.0);
     plline(2, lx, ly);
     static const int cols[MAX_SHOWN] = {SYI_PC_B, SYI_PC_A, SYI_PC_D};
-    size_t li = 0;
-    syi_plot_legend_box(2 * shown, 1);
+    /* A heading whose curves equal an earlier one's (mirror image in a symmetric layout)
+     * joins that one's legend entry instead of hiding under it. */
+    char txt[MAX_SHOWN][96];
+    size_t entry = 0, of[MAX_SHOWN];
     for (size_t a = 0; a < shown; a++) {
-        char txt[96];
         double deg = r->headings[pick[a]] * 180.0 / M_PI;
-        series(r, qf, pick[a], cols[a], 0);
-        series(r, qb, pick[a], cols[a], 1);
-        snprintf(txt, sizeof txt, "toward %.0f°, fixed damping", deg);
-        syi_plot_legend_line(li++, 1, cols[a], 0, txt);
-        snprintf(txt, sizeof txt, "toward %.0f°, reactive bound", deg);
-        syi_plot_legend_line(li++, 1, cols[a], 1, txt);
+        of[a] = entry;
+        for (size_t e = 0; e < a; e++) {
+            double diff = 0.0;
+            for (size_t i = 0; i < no; i++)
+                diff = fmax(diff, fmax(fabs(qf[i * nh + pick[a]] - qf[i * nh + pick[e]]),
+                                       fabs(qb[i * nh + pick[a]] - qb[i * nh + pick[e]])));
+            if (diff <= MIRROR_TOL && of[e] < entry) {
+                of[a] = of[e];
+                size_t l = strlen(txt[of[a]]);
+                snprintf(txt[of[a]] + l, sizeof txt[0] - l, " and %.0f°", deg);
+                break;
+            }
+        }
+        if (of[a] == entry)
+            snprintf(txt[entry++], sizeof txt[0], "toward %.0f°", deg);
     }
+    syi_plot_legend_box(entry + 2, 1);
+    for (size_t a = 0; a < shown; a++) {
+        series(r, qf, pick[a], cols[of[a]], 0);
+        series(r, qb, pick[a], cols[of[a]], 1);
+    }
+    for (size_t e = 0; e < entry; e++)
+        syi_plot_legend_line(e, 1, cols[e], 0, txt[e]);
+    shown = entry;
+    syi_plot_legend_line(shown, 1, SYI_PC_INK, 0, "fixed PTO damping");
+    syi_plot_legend_line(shown + 1, 1, SYI_PC_INK, 1, "reactive bound");
     if (n_bands > 0) {
         plcol0(SYI_PC_INK);
         plptex(x0 + 0.02 * (x1 - x0), ymin + 0.04 * (ymax - ymin), 1.0, 0.0, 0.0, "shaded: flagged bands");
@@ -151,7 +174,7 @@ int syi_plot_qfactor(const char *dir, const char *ext, const sy_model *m, const 
     plbox("bcnst", syi_plot_nice_step(x1 - x0, 8), 0, "bcnstv", syi_plot_nice_step(ymax - ymin, 6), 0);
     syi_plot_labels("wave frequency #gw (rad/s)", "q-factor (array / isolated devices)",
                     "Regular-wave q-factor of the array");
-    syi_plot_subtitle(SYI_PC_MUTED, "headings (wave travel) carrying most of the wave energy");
+    syi_plot_subtitle(SYI_PC_MUTED, "the headings carrying most of the site's wave energy");
     free(pick);
     return syi_plot_end(&c, SY_OK, err);
 }
