@@ -57,7 +57,7 @@ int syi_plot_layout(const char *dir, const char *ext, const sy_model *m, const s
     if ((rc = syi_plot_begin(&c, dir, "layout", ext, err)) != SY_OK)
         return rc;
     syi_plot_cmap1();
-    plvpas(0.09, 0.78, 0.12, 0.85, (ymax - ymin) / (xmax - xmin));
+    plvpas(0.11, 0.78, 0.12, 0.85, (ymax - ymin) / (xmax - xmin));
     plwind(xmin, xmax, ymin, ymax);
     double step = syi_plot_nice_step(xmax - xmin, 6);
     plcol0(SYI_PC_GRID);

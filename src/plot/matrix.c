@@ -71,7 +71,7 @@ int syi_plot_matrix(const char *dir, const char *ext, const sy_model *m, const s
     }
     syi_plot_cmap1();
     double x0 = b->period_edges[0], x1 = b->period_edges[np], y0 = b->hs_edges[0], y1 = b->hs_edges[nh];
-    plvpor(0.09, 0.78, 0.12, 0.85);
+    plvpor(0.11, 0.78, 0.12, 0.85);
     plwind(x0, x1, y0, y1);
     for (size_t i = 0; i < nh; i++)
         for (size_t j = 0; j < np; j++) {

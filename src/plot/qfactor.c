@@ -117,7 +117,7 @@ int syi_plot_qfactor(const char *dir, const char *ext, const sy_model *m, const 
         free(pick);
         return rc;
     }
-    plvpor(0.10, 0.95, 0.12, 0.85);
+    plvpor(0.11, 0.95, 0.12, 0.85);
     plwind(x0, x1, ymin, ymax);
     for (size_t k = 0; k < n_bands; k++) { /* shaded as given, clipped to the window */
         PLFLT lo = fmax(bands[2 * k], x0), hi = fmin(bands[2 * k + 1], x1);
