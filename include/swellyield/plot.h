@@ -18,6 +18,8 @@
  *   poles.<ext>           (only when poles is non-NULL) the poles in the complex omega
  *                         plane, marker size by quality factor Q, and the search region;
  *   report.md             one page: headline numbers, the four strategies side by side,
+ *                         the bands with their share of the annual energy (when result
+ *                         was computed with the same bands, sy_yield_compute_banded),
  *                         links to the pictures, the hours-per-year convention, cautions.
  * Pictures are 1000 x 700 px (PNG) or the same aspect in SVG/PDF, white background.
  *

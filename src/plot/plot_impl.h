@@ -67,7 +67,8 @@ int syi_plot_spectrum(const char *dir, const char *ext, const sy_model *m, const
                       const sy_hydro_db *db, const sy_yield_result *r, sy_error *err);
 int syi_plot_poles(const char *dir, const char *ext, const sy_model *m, const sy_pole_set *p, sy_error *err);
 int syi_plot_report(const char *dir, const char *ext, const sy_model *m, const sy_climate_table *cl,
-                    const sy_yield_result *r, int with_poles, sy_error *err);
+                    const sy_yield_result *r, int with_poles, const double *bands, size_t n_bands,
+                    sy_error *err);
 
 /* The climate's dominant travel heading (rad, array frame): the direction bin with most
  * hours, else [sea] direction, else 0 (toward +x). */

@@ -15,6 +15,8 @@ typedef struct {
     const sy_yield_result *r;
     const char *ext;
     int with_poles;
+    const double *bands;
+    size_t n_bands;
 } report_ctx;
 
 /* A number or "n/a" (NAN: not defined for that strategy, e.g. no rating). */
@@ -78,6 +80,19 @@ static int fill(FILE *f, const void *vctx)
         fprintf(f, "- [Resonances](poles.%s): poles in the complex frequency plane.\n", ext);
     if (strcmp(ext, "png") == 0)
         fprintf(f, "\n![Array layout](layout.png)\n\n![Power matrix](power_matrix.png)\n");
+    if (c->n_bands > 0) {
+        fprintf(f, "\n## Flagged frequency bands (shaded on the q-factor picture)\n\n"
+                   "| band (rad/s) | share of the annual energy (`%s`) |\n|---|---:|\n",
+                sy_yield_strategy_name((int)m->tuning));
+        for (size_t j = 0; j < c->n_bands; j++) {
+            fprintf(f, "| %.3f .. %.3f | ", c->bands[2 * j], c->bands[2 * j + 1]);
+            /* Shares exist only when the yield was computed with these same bands. */
+            if (r->n_bands == c->n_bands && h->energy_band != NULL && h->energy_array > 0)
+                fprintf(f, "%.1f %% |\n", 100.0 * h->energy_band[j] / h->energy_array);
+            else
+                fputs("n/a |\n", f);
+        }
+    }
     fprintf(f, "\n## Hours per year\n\nAnnual figures use %.0f h per year (365.25 days); the climate "
                "covers %.0f h/yr with non-zero occurrence (the rest, calm or outside the table, yields "
                "nothing); mean power = annual energy / %.0f h.\n",
@@ -95,12 +110,13 @@ static int fill(FILE *f, const void *vctx)
 }
 
 int syi_plot_report(const char *dir, const char *ext, const sy_model *m, const sy_climate_table *cl,
-                    const sy_yield_result *r, int with_poles, sy_error *err)
+                    const sy_yield_result *r, int with_poles, const double *bands, size_t n_bands,
+                    sy_error *err)
 {
     char path[4096 + 16];
     int n = snprintf(path, sizeof path, "%s/report.md", dir);
     if (n < 0 || (size_t)n >= sizeof path)
         return sy_error_set(err, SY_EINVAL, "report path in '%s' is too long", dir);
-    report_ctx c = {m, cl, r, ext, with_poles};
+    report_ctx c = {m, cl, r, ext, with_poles, bands, n_bands};
     return sy_outputs_write_file(path, fill, &c, err);
 }

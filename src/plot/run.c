@@ -50,6 +50,6 @@ int sy_plot_run(const char *dir, const sy_model *model, const sy_climate_table *
     if (rc == SY_OK && poles != NULL)
         rc = syi_plot_poles(dir, ext, model, poles, err);
     if (rc == SY_OK)
-        rc = syi_plot_report(dir, ext, model, climate, result, poles != NULL, err);
+        rc = syi_plot_report(dir, ext, model, climate, result, poles != NULL, bands, n_bands, err);
     return rc;
 }

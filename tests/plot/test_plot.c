@@ -100,6 +100,12 @@ static void check_report(const char *dir, const sy_model *m, const sy_yield_resu
                  t->energy_array / 1e6, t->mean_power / 1e3, t->q_factor, t->n_stroke_exceeded);
         sy_check_true(strstr(text, want) != NULL, "report: strategy row '%s'", want);
     }
+    sy_check_true(r->n_bands == 2, "result carries the 2 bands (got %zu)", r->n_bands);
+    for (size_t j = 0; j < r->n_bands; j++) {
+        double share = 100.0 * h->energy_band[j] / h->energy_array;
+        snprintf(want, sizeof want, "| %.3f .. %.3f | %.1f %% |", j == 0 ? 0.85 : 1.5, j == 0 ? 0.95 : 1.7, share);
+        sy_check_true(strstr(text, want) != NULL && share >= 0 && share <= 100, "report: band row '%s'", want);
+    }
     sy_check_true(strstr(text, "8766 h per year") != NULL, "report states the hours-per-year convention");
     for (size_t i = 0; i < N_PICTURES; i++) {
         snprintf(want, sizeof want, "(%s.png)", pictures[i]);
@@ -145,16 +151,17 @@ int main(void)
     sy_climate_table *cl = NULL;
     sy_hydro_set *hs = NULL;
     sy_yield_result *r = NULL;
+    const double bands[4] = {0.85, 0.95, 1.5, 1.7}; /* rad/s, invented flagged bands */
     int ok = sy_check_ok(sy_model_load(&m, project, &err), &err, "load the project") &&
              sy_check_ok(sy_climate_table_load(&cl, m->climate, &err), &err, "load the climate") &&
              sy_check_ok(sy_hydro_build(&hs, m, 1, NULL, 1, NULL, NULL, &err), &err, "hydrodynamics") &&
-             sy_check_ok(sy_yield_compute(&r, m, cl, hs->array, hs->iso_of_device, &err), &err, "yield");
+             sy_check_ok(sy_yield_compute_banded(&r, m, cl, hs->array, hs->iso_of_device, bands, 2, &err), &err,
+                         "yield with two flagged bands");
     if (ok) {
         /* Two invented poles inside the region, so the poles picture is drawn. */
         sy_pole poles[2] = {{.omega = 0.9 - 0.05 * I, .omega_r = 0.9, .gamma = 0.05, .q = 9.0, .kind = SY_POLE_MOTION},
                             {.omega = 1.6 - 0.2 * I, .omega_r = 1.6, .gamma = 0.2, .q = 4.0, .kind = SY_POLE_MOTION}};
         sy_pole_set ps = {.n = 2, .poles = poles, .count = {2, -1, -1}, .found = {2, 0, 0}};
-        const double bands[4] = {0.85, 0.95, 1.5, 1.7};
         sy_check_true(mkdir(out, 0777) == 0 && mkdir(svg, 0777) == 0 && mkdir(bad, 0777) == 0, "output folders made");
         if (sy_check_ok(sy_plot_run(out, m, cl, hs->array, r, &ps, bands, 2, NULL, &err), &err, "plot the run (PNG)")) {
             for (size_t i = 0; i < N_PICTURES; i++)
