@@ -18,7 +18,7 @@ int main(void)
     m.depth = 50, m.rho = 1025, m.g = 9.81, m.shape = SY_SHAPE_FLOAT, m.radius = 5, m.draft = 4;
     m.mass_displaced = 1, m.modes = SY_MODES_HEAVE, m.has_pto = 1, m.efficiency = 1, m.pto_damping = 2e5;
     m.tolerance = 1e-4, m.max_bodies = 100, m.omega = omega, m.n_omega = 2, m.headings = &head, m.n_headings = 1;
-    m.has_resonance = 1, m.q_threshold = 5;
+    m.has_resonance = 1, m.q_threshold = 5, m.pto_mode = 3;
     strcpy(m.path, "bench");
     for (int i = 0; i < 9; i++) {
         memset(&dev[i], 0, sizeof dev[i]);

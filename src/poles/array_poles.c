@@ -185,7 +185,7 @@ int sy_poles_find(sy_pole_set **out, const sy_model *m, unsigned kinds, sy_error
             db->dof_body[d] = (int)b, db->dof_mode[d] = mode;
         }
         if (rc == SY_OK)
-            rc = sy_dyn_plan_create(&dyn, m, db, 3, err);
+            rc = sy_dyn_plan_create(&dyn, m, db, m->pto_mode, err);
         if (rc == SY_OK)
             sy_dyn_plan_matrices(dyn, &mc.mass, &mc.stiff, &mc.visc);
     }
