@@ -111,8 +111,9 @@ int sy_cmd_run(int argc, char **argv)
     if (rc == SY_OK && m->shape != SY_SHAPE_FLOAT)
         rc = sy_error_set(&err, SY_EINPUT, "%s: [device] shape = column has no PTO: run needs floats (use hydro for columns)",
                           m->path);
-    if (rc == SY_OK && !(m->modes & SY_MODE_BIT(3)))
-        rc = sy_error_set(&err, SY_EINPUT, "%s: [device] modes must include heave (the PTO acts on heave)", m->path);
+    if (rc == SY_OK && !(m->modes & SY_MODE_BIT(m->pto_mode)))
+        rc = sy_error_set(&err, SY_EINPUT, "%s: [device] modes must include %s, the [pto] mode", m->path,
+                          sy_model_mode_name(m->pto_mode));
     if (rc == SY_OK)
         rc = sy_climate_table_load(&cl, m->climate, &err);
     /* Inputs are valid from here on; the cache may be created. */

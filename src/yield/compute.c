@@ -14,8 +14,8 @@
 #include <stdlib.h>
 #include <string.h>
 
-/* The PTO acts on heave (dynamics.h: one mode per device, heave by default). */
-#define SY_PTO_MODE 3
+/* The PTO acts on one mode per device: [pto] mode (heave by default; dynamics.h). */
+#define SY_PTO_MODE (c->m->pto_mode)
 
 /* Search range for the shared damping, relative to the isolated device's passive optimum
  * at the bin's energy frequency: +-3 decades hold every sensible PTO setting. */
@@ -743,7 +743,7 @@ int sy_yield_compute_banded(sy_yield_result **out, const sy_model *m, const sy_c
     if (rc == SY_OK && seas->n == 0)
         rc = sy_error_set(err, SY_EINPUT, "climate %s: no bin has non-zero occurrence", m->climate);
     if (rc == SY_OK)
-        rc = sy_dyn_plan_create(&c.plan, m, db, SY_PTO_MODE, err);
+        rc = sy_dyn_plan_create(&c.plan, m, db, m->pto_mode, err);
     if (rc == SY_OK)
         rc = sy_dyn_work_alloc(&c.work, c.plan, err);
     if (rc == SY_OK) {
@@ -792,7 +792,7 @@ int sy_yield_compute_banded(sy_yield_result **out, const sy_model *m, const sy_c
         c.iso_model[g].devices = (sy_model_device *)&m->devices[body];
         c.iso_model[g].n_devices = 1;
         c.n_iso++;
-        rc = sy_dyn_plan_create(&c.iso_plan[g], &c.iso_model[g], iso, SY_PTO_MODE, err);
+        rc = sy_dyn_plan_create(&c.iso_plan[g], &c.iso_model[g], iso, m->pto_mode, err);
         if (rc == SY_OK)
             rc = sy_dyn_work_alloc(&c.iso_work[g], c.iso_plan[g], err);
         if (rc == SY_OK)
