@@ -1,7 +1,7 @@
 /* Picture 4: the site's most frequent sea state (the bin with most hours): its spectrum
  * S(omega) (the model's JONSWAP or Bretschneider, exact normalisation Hm0 = Hs, as the
  * yield builds it) and the array's absorbed power density in that sea at the fixed PTO
- * setting, P(omega) = 2 S(omega) sum_j D_j sum_k p_k(omega, beta_j) (W s/rad), with p_k
+ * setting ([pto] mode), P(omega) = 2 S(omega) sum_j D_j sum_k p_k(omega, beta_j) (W s/rad), with p_k
  * the mechanical power per unit amplitude^2 from sy_dyn_response and D_j the cos-2s
  * weights about the bin's direction (conventions.md "factor 2"). Mechanical power,
  * before efficiency and rating; the spectral energy outside the run's grid is not drawn. */
@@ -14,7 +14,7 @@
 #include <stdio.h>
 #include <stdlib.h>
 
-#define HEAVE 3 /* the PTO mode of the main job (cmd_run requires heave) */
+#define HEAVE 3 /* the PTO mode when a hand-built model leaves pto_mode 0 */
 
 size_t syi_plot_most_frequent_bin(const sy_yield_result *r)
 {
@@ -33,7 +33,7 @@ static int absorbed(const sy_model *m, const sy_hydro_db *db, const sy_sea_spect
     sy_dyn_work *work = NULL;
     size_t nh = db->n_headings, nk = 0;
     double *b = NULL, *kst = NULL, *pw = NULL;
-    int rc = sy_dyn_plan_create(&plan, m, db, HEAVE, err);
+    int rc = sy_dyn_plan_create(&plan, m, db, m->pto_mode > 0 ? m->pto_mode : HEAVE, err);
     if (rc == SY_OK)
         rc = sy_dyn_work_alloc(&work, plan, err);
     if (rc == SY_OK) {
