@@ -70,11 +70,20 @@ typedef struct reader {
 static char *read_line(char *str, int num, void *stream)
 {
     reader *r = stream;
+    long before = ftell(r->f);
     if (r->rc != SY_OK || fgets(str, num, r->f) == NULL)
         return NULL;
     r->line++;
     r->err_line = r->line; /* only read when r->rc is set */
     size_t n = strlen(str);
+    /* fgets reads through a NUL byte, which would silently cut the line short: the
+     * bytes consumed and the string's length differ exactly then. */
+    long after = ftell(r->f);
+    if (before >= 0 && after >= 0 && (size_t)(after - before) != n) {
+        r->rc = sy_error_set(r->err, SY_EINPUT, "%s:%zu: NUL byte in the line, expected UTF-8 text", r->path,
+                             r->line);
+        return NULL;
+    }
     if (n + 1 == (size_t)num && str[n - 1] != '\n' && !feof(r->f)) {
         r->rc = sy_error_set(r->err, SY_EINPUT, "%s:%zu: line longer than %d characters", r->path,
                              r->line, num - 2);
