@@ -156,6 +156,11 @@ printf 'name,x,y\nP1,0,0\nP2,30,12\nP3,60,0\n' >"$d/l3.csv"
 sed "s|^file = .*|file = l3.csv|; s|^omega = .*|omega = 0.3:2.8:20\nmax_bodies = 2|" "$d/good.ini" >"$d/lmax.ini"
 bad "layout: above [solve] max_bodies = 2 (check)" check "3 devices exceed the limit of 2 (raise [solve] max_bodies" -- "$prog" check "$d/lmax.ini"
 
+sed "s|^file = .*|file = l3.csv|; s|^omega = .*|omega = 0.3:2.8:20\norders = 60\ndepth_modes = 60|" "$d/good.ini" >"$d/lmatrix.ini"
+# 3 bodies x 121 orders x 60 depth modes = 21780 unknowns: 16 B x 21780^2 = 7.6 GB per thread.
+bad "hydro: interaction matrix above 4 GB refused up front (hydro)" hydro "needs 7.6 GB per thread (limit 4.0 GB): set [solve] depth_modes or orders lower" -- "$prog" hydro "$d/lmatrix.ini" -o "$tmp/out.nc" --quiet
+bad "hydro: interaction matrix above 4 GB refused up front (run)" run "needs 7.6 GB per thread (limit 4.0 GB)" -- "$prog" run "$d/lmatrix.ini" -o "$tmp/out" --quiet
+
 # ---------------------------------------------------------------- scatter CSV
 head -n 9 "$src/seastates/shelf_site.csv" >"$d/hdr.csv" # metadata + header
 hdr=$(tail -n 1 "$d/hdr.csv")
