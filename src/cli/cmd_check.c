@@ -22,15 +22,8 @@ int sy_cmd_check(int argc, char **argv)
     sy_error err = SY_ERROR_INIT;
     sy_model *m = NULL;
     int rc = sy_model_load(&m, argv[1], &err);
-    if (rc == SY_OK && m->climate[0]) { /* a run would read it: check it too */
-        sy_climate_table *cl = NULL;
-        rc = sy_climate_table_load(&cl, m->climate, &err);
-        sy_climate_table_free(cl);
-    }
-    if (rc != SY_OK) {
-        sy_model_free(m);
+    if (rc != SY_OK)
         return sy_cli_fail("check", rc, &err);
-    }
     size_t n_modes = 0;
     for (int mode = 1; mode <= 5; mode++)
         n_modes += (m->modes & SY_MODE_BIT(mode)) != 0;
