@@ -213,7 +213,7 @@ static int get_dim(reader *r, const char *name, int required, int *dimid, size_t
 static int read_contents(reader *r, sy_climate_table **out)
 {
     int d_hs, d_per, d_dir, d_bnd;
-    size_t n_hs, n_per, n_dir, n_bnd;
+    size_t n_hs = 0, n_per = 0, n_dir = 0, n_bnd = 0;
     int rc = get_dim(r, "hs", 1, &d_hs, &n_hs);
     if (rc == SY_OK)
         rc = get_dim(r, "period", 1, &d_per, &n_per);

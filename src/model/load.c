@@ -97,7 +97,12 @@ static char *read_line(char *str, int num, void *stream)
      * section without keys would otherwise pass silently. */
     const char *p = str + strspn(str, " \t");
     if (*p == '[') {
-        size_t len = strcspn(p + 1, "]"), ns = sizeof sections / sizeof sections[0], s;
+        size_t len = strcspn(p + 1, "]\r\n"), ns = sizeof sections / sizeof sections[0], s;
+        if (p[1 + len] != ']') { /* found by fuzzing: the newline went into the message */
+            r->rc = sy_error_set(r->err, SY_EINPUT, "%s:%zu: section header '[%.*s' lacks its closing ']'",
+                                 r->path, r->line, (int)len, p + 1);
+            return NULL;
+        }
         for (s = 0; s < ns && !(strlen(sections[s]) == len && strncmp(p + 1, sections[s], len) == 0); s++)
             ;
         if (s == ns) {
