@@ -13,12 +13,25 @@
 
 static char fuzz_dir[256];
 
+/* At exit (libFuzzer exits normally at -max_total_time): the files and the folder go. */
+static void fuzz_cleanup(void)
+{
+    static const char *const names[] = {"p.ini", "layout.csv", "table.csv"};
+    char path[512];
+    for (size_t i = 0; i < sizeof names / sizeof names[0]; i++) {
+        snprintf(path, sizeof path, "%s/%s", fuzz_dir, names[i]);
+        remove(path);
+    }
+    remove(fuzz_dir);
+}
+
 static void fuzz_setup(void)
 {
     sy_init();
     snprintf(fuzz_dir, sizeof fuzz_dir, "/tmp/sy-fuzz-XXXXXX");
     if (mkdtemp(fuzz_dir) == NULL)
         abort();
+    atexit(fuzz_cleanup);
 }
 
 /* Write n bytes to <fuzz_dir>/<name>; the full path goes into path (capacity 512). */
