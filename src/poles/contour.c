@@ -45,6 +45,10 @@ static int polish(const syi_nep *p, const syi_nep_settings *st, double complex w
     size_t n = p->n;
     double complex wprev = w0 * (1.0 + 1e-7) + 1e-9, w = w0, gprev = 0, g = 0;
     int rc = SY_OK, conv = 0;
+    size_t i0 = 0;
+    for (size_t i = 1; i < n; i++)
+        if (cabs(v[i]) > cabs(v[i0]))
+            i0 = i;
     for (int it = 0; it < POLISH_MAX_ITER && !conv; it++) {
         for (int pass = (it == 0 ? 0 : 1); pass < 2; pass++) {
             double complex at = pass == 0 ? wprev : w;
@@ -70,10 +74,16 @@ static int polish(const syi_nep *p, const syi_nep_settings *st, double complex w
         double complex step = g * (w - wprev) / (g - gprev);
         if (!isfinite(creal(step)) || !isfinite(cimag(step)))
             break;
-        /* inverse-iteration update of v keeps it aligned with the eigenvector */
-        double nx = vnorm(x, n);
+        /* Inverse-iteration update of v keeps it aligned with the eigenvector. Scaled so
+         * that one fixed entry stays 1: a unit-norm scaling would rotate v's phase every
+         * step, multiply g by a new phase and break the secant (for n = 1 it never
+         * converged). With the fixed entry, g changes only by the shrinking eigenvector
+         * correction. */
+        if (x[i0] == 0)
+            break;
+        double complex xi0 = x[i0];
         for (size_t i = 0; i < n; i++)
-            v[i] = x[i] / nx;
+            v[i] = x[i] / xi0;
         wprev = w, gprev = g;
         w -= step;
         conv = cabs(step) <= st->polish_tol * cabs(w);
