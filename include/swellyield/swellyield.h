@@ -15,4 +15,5 @@
 #include "swellyield/outputs.h"
 #include "swellyield/hydro.h"
 #include "swellyield/poles.h"
+#include "swellyield/response.h"
 #endif
