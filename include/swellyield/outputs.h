@@ -19,11 +19,13 @@
 #ifndef SWELLYIELD_OUTPUTS_H
 #define SWELLYIELD_OUTPUTS_H
 
+#include <complex.h>
 #include <stdio.h>
 #include "swellyield/core.h"
 #include "swellyield/climate.h"
 #include "swellyield/model.h"
 #include "swellyield/yield.h"
+#include "swellyield/poles.h"
 
 #ifdef __cplusplus
 extern "C" {
@@ -52,15 +54,37 @@ SY_API void sy_outputs_abort(sy_outputs_stage *st);
 SY_API int sy_outputs_write_file(const char *path, int (*fill)(FILE *f, const void *ctx), const void *ctx,
                                  sy_error *err);
 
+/* poles.csv: kind, omega_r, gamma, Q, period, residual, polished, and for motion poles the
+ * amplitude and phase (deg) of every dof (columns named <device>_dof<i>_abs/_phase_deg). */
+SY_API int sy_outputs_write_poles(const char *path, const sy_model *model, const sy_pole_set *set,
+                                  sy_error *err);
+
 /* The text of the standard cautions (linear potential flow, out-of-scope items, IEC TS
  * 62600 series), one caution per line. Static string. */
 SY_API const char *sy_outputs_cautions(void);
 
-/* Write the main job's files into the staging folder. headline: the strategy whose
- * figures lead summary.json (the model's [pto] tuning). */
+/* A resonance-flagged frequency band: [omega_min, omega_max] = [omega_r - 2 gamma,
+ * omega_r + 2 gamma] clipped to the run's frequencies, from a pole with Q above the
+ * model's q_threshold; its index j matches the bands given to sy_yield_compute_banded. */
+typedef struct sy_flagged_band {
+    double omega_min, omega_max;  /* rad/s */
+    double complex pole;          /* omega_r - i gamma */
+    double q;
+    int kind;                     /* sy_pole_kind */
+} sy_flagged_band;
+
+/* Share of a bin's spectral energy inside a band from which the bin is listed under it. */
+#define SY_OUTPUTS_BAND_BIN_SHARE 0.1
+
+/* Write the main job's files into the staging folder; the model's [pto] tuning leads
+ * summary.json. bands[n_bands] (may be 0) go to summary.json "flagged_bands" with their
+ * share of the headline annual energy and the sea-state bins holding at least
+ * SY_OUTPUTS_BAND_BIN_SHARE of their spectral energy inside; resonance_note (may be NULL)
+ * says how the resonance search went. */
 SY_API int sy_outputs_write_yield(const sy_outputs_stage *st, const sy_model *model,
                                   const sy_climate_table *climate, const sy_yield_result *r,
-                                  sy_error *err);
+                                  const sy_flagged_band *bands, size_t n_bands,
+                                  const char *resonance_note, sy_error *err);
 
 #ifdef __cplusplus
 }

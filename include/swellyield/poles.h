@@ -12,7 +12,9 @@
  *               computed (TODO(#6)), so found[] stays 0 for this family.
  * Method: contour integrals (Beyn 2012) on an ellipse covering the model's [resonance]
  * region, sized by the argument-principle count, each pole polished by a secant
- * iteration to 1e-10 relative (see src/poles/poles_impl.h). For the motion family the
+ * iteration to max(1e-12, tolerance / 100) relative (the float body's truncation, chosen
+ * per frequency from [solve] tolerance, makes T analytic only to about that level; use
+ * tolerance 1e-8 or tighter for poles to 1e-10), see src/poles/poles_impl.h. For the motion family the
  * count adds the winding of det(I - D T) (Z_rad has poles where the scattering operator
  * is singular), so count = motion poles found when every scattering zero inside couples
  * to the motion. */
@@ -32,6 +34,7 @@ typedef enum { SY_POLE_MOTION = 0, SY_POLE_MOTION_NO_PTO = 1, SY_POLE_SCATTERING
 #define SY_POLES_MOTION 1u
 #define SY_POLES_NO_PTO 2u
 #define SY_POLES_SCATTERING 4u
+#define SY_POLES_NOT_SEARCHED (-1000000)
 
 SY_API const char *sy_pole_kind_name(sy_pole_kind kind);
 
@@ -51,7 +54,7 @@ typedef struct sy_pole_set {
     sy_pole *poles;              /* sorted by omega_r */
     size_t n_dof;
     double complex *modes;       /* storage for the mode shapes */
-    int count[3];                /* argument-principle count per kind searched (-1: not searched) */
+    int count[3];                /* argument-principle count per kind (SY_POLES_NOT_SEARCHED: not searched) */
     size_t found[3];             /* poles found per kind */
     size_t evaluations;          /* complex-frequency array evaluations (contour + polish) */
     double complex centre;       /* the ellipse used: centre and semi-axes, rad/s */

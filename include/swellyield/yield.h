@@ -68,6 +68,8 @@ typedef struct sy_yield_strategy {
     double capacity_factor; /* mean_power / (N rated), NAN without a rating */
     size_t n_stroke_exceeded; /* bins where the significant stroke exceeds max_stroke */
     double site_damping;    /* SITE_OPTIMAL: the b chosen; else NAN */
+    double *energy_band;    /* [n_bands] W h per year produced by frequency components inside
+                               each flagged band (electrical, in proportion to the mechanical) */
     double *q_omega;        /* [n_omega][n_headings] regular-wave q-factor sum P / sum P_isolated
                                at each frequency and heading (NAN for PER_SEA_STATE, whose
                                damping depends on the sea state) */
@@ -79,6 +81,8 @@ typedef struct sy_yield_result {
     size_t n_omega, n_headings;
     double *omega;          /* [n_omega] rad/s, the run's grid */
     double *headings;       /* [n_headings] rad */
+    size_t n_bands;         /* flagged bands given to sy_yield_compute_banded */
+    double *band_fraction;  /* [n_bins][n_bands] share of each bin's spectral energy inside each band */
     double *hours;          /* [n_bins] mean annual hours of each bin */
     double *resource;       /* [n_bins] wave power J per metre of crest at the site depth, W/m */
     double mean_resource;   /* occurrence-weighted mean J, W/m */
@@ -97,6 +101,15 @@ SY_API void sy_yield_result_free(sy_yield_result *r);
 SY_API int sy_yield_compute(sy_yield_result **out, const sy_model *model,
                             const sy_climate_table *climate, const sy_hydro_db *array_db,
                             const sy_hydro_db *const *iso_db, sy_error *err);
+
+/* The same, and for each flagged frequency band (bands[2 j], bands[2 j + 1], rad/s;
+ * n_bands <= SY_YIELD_MAX_BANDS) the annual energy produced inside it (energy_band) and
+ * each bin's share of spectral energy inside it (band_fraction). */
+#define SY_YIELD_MAX_BANDS 64
+SY_API int sy_yield_compute_banded(sy_yield_result **out, const sy_model *model,
+                                   const sy_climate_table *climate, const sy_hydro_db *array_db,
+                                   const sy_hydro_db *const *iso_db, const double *bands,
+                                   size_t n_bands, sy_error *err);
 
 #ifdef __cplusplus
 }

@@ -43,15 +43,40 @@ int sy_cmd_check(int argc, char **argv)
     printf("frequencies %zu from %g to %g rad/s\n", m->n_omega, m->omega[0], m->omega[m->n_omega - 1]);
     printf("headings    %zu from %g to %g deg\n", m->n_headings, m->headings[0] * 180 / M_PI,
            m->headings[m->n_headings - 1] * 180 / M_PI);
-    if (m->climate[0])
-        printf("climate     %s\n", m->climate);
+    if (m->climate[0]) {
+        sy_climate_table *cl = NULL;
+        sy_climate_summary cs;
+        rc = sy_climate_table_load(&cl, m->climate, &err);
+        if (rc == SY_OK)
+            rc = sy_climate_table_summarise(cl, &cs, &err);
+        if (rc != SY_OK) {
+            sy_climate_table_free(cl);
+            sy_model_free(m);
+            return sy_cli_fail("check", rc, &err);
+        }
+        printf("climate     %s: %zu sea states with occurrence of %zu bins, %.0f h/yr, Hs %g..%g m\n", m->climate,
+               cs.n_nonzero, cs.n_bins, cs.total_hours, cs.hs_min, cs.hs_max);
+        sy_climate_table_free(cl);
+    }
     if (m->has_resonance)
         printf("resonances  Re omega %g..%g rad/s, Im omega down to -%g rad/s, flag Q > %g\n", m->res_re_min,
                m->res_re_max, m->res_im_depth, m->q_threshold);
-    /* Work estimate: the interaction system has about N (2M+1) Q unknowns; one dense LU
-     * per frequency dominates for large arrays. */
-    printf("unknowns    %zu bodies x %zu modes; %zu frequency solves with %zu right-hand sides each\n",
-           m->n_devices, n_modes, m->n_omega, m->n_headings + m->n_devices * n_modes);
+    /* Work estimate: one dense LU of the N (2M+1) Q interaction unknowns per frequency
+     * dominates for large arrays; ~1e10 flop/s per core is what the benchmarks measured
+     * (docs/benchmarks.md), so this is a rough guide, not a promise. */
+    sy_array_plan *plan = NULL;
+    rc = sy_hydro_plan_create(&plan, m, m->devices, m->n_devices, &err);
+    if (rc != SY_OK) {
+        sy_model_free(m);
+        return sy_cli_fail("check", rc, &err);
+    }
+    char trunc[256];
+    sy_array_plan_truncation(plan, trunc, sizeof trunc);
+    double nu = (double)sy_array_plan_n_unknowns(plan), flops = 8.0 / 3.0 * nu * nu * nu * (double)m->n_omega;
+    printf("hydro       %zu bodies x %zu modes, %.0f interaction unknowns (%s)\n", m->n_devices, n_modes, nu, trunc);
+    printf("estimate    about %.0f s for the frequency sweep on 2 cores (dense LU; first run only, then cached)\n",
+           fmax(1.0, flops / 2e10));
+    sy_array_plan_free(plan);
     sy_model_free(m);
     printf("inputs are valid\n");
     return SY_EXIT_OK;

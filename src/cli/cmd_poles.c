@@ -4,6 +4,7 @@
 #include "cli.h"
 
 #include <getopt.h>
+#include <complex.h>
 #include <math.h>
 #include <stdio.h>
 #include <string.h>
@@ -14,38 +15,6 @@ static const char *help =
     "[resonance] region: motion resonances with the PTO as set and without it, and the\n"
     "scattering resonances of the array held fixed. Prints them; -o writes them as CSV with\n"
     "each motion resonance's mode shape (amplitude and phase of every body's dof).\n";
-
-typedef struct poles_out {
-    const sy_model *m;
-    const sy_pole_set *set;
-} poles_out;
-
-static int fill(FILE *f, const void *ctx)
-{
-    const poles_out *c = ctx;
-    const sy_pole_set *s = c->set;
-    size_t nd = s->n_dof;
-    size_t per = nd / (c->m->n_devices ? c->m->n_devices : 1);
-    fprintf(f, "kind,omega_r_rad_s,gamma_rad_s,q_factor,period_s,residual,converged");
-    for (size_t d = 0; d < nd; d++) {
-        const char *name = c->m->devices[d / (per ? per : 1)].name;
-        fprintf(f, ",%s_dof%zu_abs,%s_dof%zu_phase_deg", name, d % (per ? per : 1), name, d % (per ? per : 1));
-    }
-    fprintf(f, "\n");
-    for (size_t i = 0; i < s->n; i++) {
-        const sy_pole *p = &s->poles[i];
-        fprintf(f, "%s,%.12g,%.12g,%.6g,%.6g,%.3g,%d", sy_pole_kind_name(p->kind), p->omega_r, p->gamma, p->q,
-                2 * M_PI / p->omega_r, p->residual, p->converged);
-        for (size_t d = 0; d < nd; d++) {
-            if (p->mode != NULL)
-                fprintf(f, ",%.6g,%.4g", cabs(p->mode[d]), carg(p->mode[d]) * 180 / M_PI);
-            else
-                fprintf(f, ",,");
-        }
-        fprintf(f, "\n");
-    }
-    return ferror(f);
-}
 
 int sy_cmd_poles(int argc, char **argv)
 {
@@ -70,9 +39,8 @@ int sy_cmd_poles(int argc, char **argv)
     int rc = sy_model_load(&m, argv[optind], &err);
     if (rc == SY_OK)
         rc = sy_poles_find(&set, m, SY_POLES_MOTION | SY_POLES_NO_PTO | SY_POLES_SCATTERING, &err);
-    poles_out po = {m, set};
     if (rc == SY_OK && out != NULL)
-        rc = sy_outputs_write_file(out, fill, &po, &err);
+        rc = sy_outputs_write_poles(out, m, set, &err);
     if (rc != SY_OK) {
         int code = sy_cli_fail("poles", rc, &err);
         sy_model_free(m);
@@ -81,7 +49,7 @@ int sy_cmd_poles(int argc, char **argv)
     printf("resonances of %s in Re omega %g..%g rad/s, Im omega -%g..0 (%zu array evaluations)\n", m->path,
            m->res_re_min, m->res_re_max, m->res_im_depth, set->evaluations);
     for (int k = 0; k < 3; k++)
-        if (set->count[k] >= 0)
+        if (set->count[k] != SY_POLES_NOT_SEARCHED)
             printf("  %-14s found %zu, argument-principle count %d%s\n", sy_pole_kind_name((sy_pole_kind)k),
                    set->found[k], set->count[k], set->count[k] == (int)set->found[k] ? "" : "  (differ: see docs)");
     printf("  %-14s %12s %12s %10s %9s\n", "kind", "omega_r", "gamma", "Q", "period s");

@@ -4,6 +4,7 @@
 #include "cli.h"
 #include "sy_config.h"
 
+#include <complex.h>
 #include <errno.h>
 #include <getopt.h>
 #include <sys/stat.h>
@@ -21,7 +22,11 @@ static const char *help =
     "run succeeds; DIR/cache keeps solved frequencies so a re-run resumes.\n"
     "  -o, --output DIR   output folder\n"
     "  -j, --jobs N       threads for the frequency sweep (default: all cores)\n"
-    "  -q, --quiet        no progress bar\n";
+    "  -q, --quiet        no progress bar\n"
+    "  -r, --resonances   also search the [resonance] region for the array's motion\n"
+    "                     resonances, flag the bands of those with Q > q_threshold and\n"
+    "                     report the share of the annual energy made inside them (poles.csv,\n"
+    "                     summary.json flagged_bands); slower\n";
 
 static void on_progress(void *ctx, size_t done, size_t total)
 {
@@ -68,11 +73,12 @@ int sy_cmd_run(int argc, char **argv)
 {
     static const struct option opts[] = {{"output", required_argument, NULL, 'o'}, {"jobs", required_argument, NULL, 'j'},
                                          {"quiet", no_argument, NULL, 'q'},        {"help", no_argument, NULL, 'h'},
+                                         {"resonances", no_argument, NULL, 'r'},
                                          {NULL, 0, NULL, 0}};
     const char *dir = "swellyield-out";
-    int jobs = 0, c;
+    int jobs = 0, c, want_res = 0;
     optind = 1;
-    while ((c = getopt_long(argc, argv, "o:j:qh", opts, NULL)) != -1) {
+    while ((c = getopt_long(argc, argv, "o:j:qhr", opts, NULL)) != -1) {
         switch (c) {
         case 'o': dir = optarg; break;
         case 'j': {
@@ -84,6 +90,7 @@ int sy_cmd_run(int argc, char **argv)
             break;
         }
         case 'q': sy_cli_set_quiet(1); break;
+        case 'r': want_res = 1; break;
         case 'h': fputs(help, stdout); return SY_EXIT_OK;
         default: return sy_cli_usage_error("run", "unknown option");
         }
@@ -122,13 +129,44 @@ int sy_cmd_run(int argc, char **argv)
     if (rc == SY_OK)
         rc = sy_hydro_build(&hs, m, 1, cache, jobs, on_progress, &prog, &err);
     sy_progress_end(&prog);
+    /* Resonances (optional, not fatal): flagged bands of the motion poles with high Q. */
+    sy_pole_set *ps = NULL;
+    sy_flagged_band bands[SY_YIELD_MAX_BANDS];
+    double edges[2 * SY_YIELD_MAX_BANDS];
+    size_t nb = 0;
+    char note[SY_ERROR_MSG_MAX + 64] = "not run (swellyield run --resonances; needs a [resonance] region)";
+    if (rc == SY_OK && want_res) {
+        sy_error perr = SY_ERROR_INIT;
+        int prc = sy_poles_find(&ps, m, SY_POLES_MOTION | SY_POLES_SCATTERING, &perr);
+        if (prc != SY_OK) {
+            snprintf(note, sizeof note, "failed: %s", perr.msg);
+        } else {
+            double lo = m->omega[0], hi = m->omega[m->n_omega - 1];
+            for (size_t i = 0; i < ps->n && nb < SY_YIELD_MAX_BANDS; i++) {
+                const sy_pole *p = &ps->poles[i];
+                double a = fmax(lo, p->omega_r - 2 * p->gamma), b = fmin(hi, p->omega_r + 2 * p->gamma);
+                if (p->kind == SY_POLE_SCATTERING || !(p->q > m->q_threshold) || !(a < b))
+                    continue;
+                bands[nb] = (sy_flagged_band){a, b, p->omega, p->q, (int)p->kind};
+                edges[2 * nb] = a, edges[2 * nb + 1] = b;
+                nb++;
+            }
+            snprintf(note, sizeof note,
+                     "%zu motion resonances found (argument-principle count %d), %zu with Q > %g flagged; "
+                     "scattering resonances counted: %d",
+                     ps->found[SY_POLE_MOTION], ps->count[SY_POLE_MOTION], nb, m->q_threshold,
+                     ps->count[SY_POLE_SCATTERING]);
+        }
+    }
     if (rc == SY_OK)
-        rc = sy_yield_compute(&yr, m, cl, hs->array, hs->iso_of_device, &err);
+        rc = sy_yield_compute_banded(&yr, m, cl, hs->array, hs->iso_of_device, edges, nb, &err);
     char path[SY_OUTPUTS_PATH_MAX + 64];
     if (rc == SY_OK && (rc = sy_outputs_path(&st, "hydro.nc", path, sizeof path, &err)) == SY_OK)
         rc = sy_hydro_db_write(hs->array, path, &err);
     if (rc == SY_OK)
-        rc = sy_outputs_write_yield(&st, m, cl, yr, &err);
+        rc = sy_outputs_write_yield(&st, m, cl, yr, bands, nb, note, &err);
+    if (rc == SY_OK && ps != NULL && (rc = sy_outputs_path(&st, "poles.csv", path, sizeof path, &err)) == SY_OK)
+        rc = sy_outputs_write_poles(path, m, ps, &err);
     if (rc == SY_OK)
         rc = sy_outputs_commit(&st, &err);
     if (rc != SY_OK)
@@ -136,6 +174,13 @@ int sy_cmd_run(int argc, char **argv)
     int code = rc == SY_OK ? SY_EXIT_OK : sy_cli_fail("run", rc, &err);
     if (rc == SY_OK)
         print_summary(m, yr, st.dir);
+    if (rc == SY_OK && !sy_cli_quiet() && want_res)
+        printf("  resonances: %s\n", note);
+    for (size_t j = 0; rc == SY_OK && j < nb; j++)
+        printf("  flagged band %.3f..%.3f rad/s (pole %.4f%+.4fi, Q %.1f): %.1f %% of the annual energy\n",
+               bands[j].omega_min, bands[j].omega_max, creal(bands[j].pole), cimag(bands[j].pole), bands[j].q,
+               100 * yr->s[m->tuning].energy_band[j] / yr->s[m->tuning].energy_array);
+    sy_pole_set_free(ps);
     sy_yield_result_free(yr);
     sy_hydro_set_free(hs);
     sy_climate_table_free(cl);

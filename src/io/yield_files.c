@@ -181,6 +181,9 @@ typedef struct files_ctx {
     const sy_model *m;
     const sy_climate_table *cl;
     const sy_yield_result *r;
+    const sy_flagged_band *bands;
+    size_t n_bands;
+    const char *note;
 } files_ctx;
 
 static int fill_matrix_csv(FILE *f, const void *p)
@@ -282,6 +285,44 @@ static int fill_summary(FILE *f, const void *p)
     json_object_set_new(res, "max_spectral_energy_outside_frequencies", num(r->max_outside));
     json_object_set_new(res, "max_spreading_outside_headings", num(r->max_dir_outside));
     json_object_set_new(root, "resource", res);
+    json_t *fb = json_array();
+    const sy_climate_bins *bins = sy_climate_table_bins(c->cl);
+    size_t ndir = bins->n_dir > 0 ? bins->n_dir : 1;
+    for (size_t j = 0; j < c->n_bands; j++) {
+        const sy_flagged_band *b = &c->bands[j];
+        json_t *o = json_object();
+        static const char *const kinds[] = {"motion", "motion_no_pto", "scattering"};
+        json_object_set_new(o, "omega_min", num(b->omega_min));
+        json_object_set_new(o, "omega_max", num(b->omega_max));
+        json_object_set_new(o, "pole_re", num(creal(b->pole)));
+        json_object_set_new(o, "pole_im", num(cimag(b->pole)));
+        json_object_set_new(o, "Q", num(b->q));
+        json_object_set_new(o, "kind", json_string(b->kind >= 0 && b->kind < 3 ? kinds[b->kind] : "?"));
+        json_object_set_new(o, "energy_share", num(r->s[head].energy_band[j] / r->s[head].energy_array));
+        json_t *ss = json_array();
+        for (size_t i = 0; i < bins->n_hs; i++)
+            for (size_t p2 = 0; p2 < bins->n_period; p2++)
+                for (size_t d = 0; d < ndir; d++) {
+                    size_t t = sy_climate_table_index(c->cl, i, p2, d);
+                    double share = r->band_fraction[t * r->n_bands + j];
+                    if (!(r->hours[t] > 0) || share < SY_OUTPUTS_BAND_BIN_SHARE)
+                        continue;
+                    json_t *e = json_object();
+                    json_object_set_new(e, "hs_min", num(bins->hs_edges[i]));
+                    json_object_set_new(e, "hs_max", num(bins->hs_edges[i + 1]));
+                    json_object_set_new(e, "period_min", num(bins->period_edges[p2]));
+                    json_object_set_new(e, "period_max", num(bins->period_edges[p2 + 1]));
+                    if (bins->n_dir)
+                        json_object_set_new(e, "dir_from_deg", num(bins->dir_centres[d]));
+                    json_object_set_new(e, "spectral_share", num(share));
+                    json_array_append_new(ss, e);
+                }
+        json_object_set_new(o, "sea_states", ss);
+        json_array_append_new(fb, o);
+    }
+    json_object_set_new(root, "flagged_bands", fb);
+    if (c->note != NULL)
+        json_object_set_new(root, "resonance_search", json_string(c->note));
     json_object_set_new(root, "project", json_string(c->m->path));
     json_object_set_new(root, "climate", json_string(c->m->climate));
     json_object_set_new(root, "software", json_string(sy_version()));
@@ -301,9 +342,10 @@ static int fill_summary(FILE *f, const void *p)
 }
 
 int sy_outputs_write_yield(const sy_outputs_stage *st, const sy_model *m, const sy_climate_table *cl,
-                           const sy_yield_result *r, sy_error *err)
+                           const sy_yield_result *r, const sy_flagged_band *bands, size_t n_bands, const char *note,
+                           sy_error *err)
 {
-    files_ctx c = {m, cl, r};
+    files_ctx c = {m, cl, r, bands, n_bands, note};
     char path[SY_OUTPUTS_PATH_MAX + 64], tmp[SY_OUTPUTS_PATH_MAX + 128];
     int rc = sy_outputs_path(st, "power_matrix.nc", path, sizeof path, err);
     if (rc == SY_OK)

@@ -206,8 +206,9 @@ int syi_nep_contour(const syi_nep *p, const syi_ellipse *c, const syi_nep_settin
         goto done; /* nothing inside */
     if (k == kl) {
         rc = sy_error_set(err, SY_ENOCONV,
-                          "contour: %zu eigenvalues may exceed the capacity %zu (columns x moments); raise them or split the region",
-                          k, kl);
+                          "contour: %zu eigenvalues may exceed the capacity %zu (columns x moments; "
+                          "argument-principle count %d); raise them or split the region",
+                          k, kl, res->count);
         goto done;
     }
     /* D = U0^H H1 W0 Sigma0^-1 (k x k); W0 = Wt^H first k columns. */

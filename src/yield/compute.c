@@ -72,6 +72,9 @@ typedef struct ctx {
     cells full;                     /* every cell above CELL_FLOOR: the reported values */
     cells search;                   /* cells above SEARCH_FLOOR: the damping searches */
     size_t group;                   /* group being optimised */
+    const double *bands;            /* [nb][2] flagged frequency bands (lo, hi), rad/s */
+    size_t nb;
+    double *pband;                  /* [nb] mechanical power of the bin being stored inside each band, W */
     double limit_v;                 /* motion variance at the stroke limit for the bin being solved */
     sy_error *err;
 } ctx;
@@ -142,6 +145,29 @@ static void group_table(const ctx *c, size_t g, const double *tab, double scale,
         for (size_t q = 0; q < c->nd; q++)
             out[q] += a2 * t[q];
     }
+}
+
+/* Unit-Hs power of all devices in group g from cells inside band j: from a table (tab != NULL)
+ * or the modal response at shared damping b. */
+static double group_band(ctx *c, size_t g, size_t j, const double *tab, double b)
+{
+    const cells *cs = &c->full;
+    double lo = c->bands[2 * j], hi = c->bands[2 * j + 1], p = 0;
+    for (size_t k = cs->start[g]; k < cs->start[g + 1]; k++) {
+        double w = c->db->omega[cs->io[k]];
+        if (w < lo || w > hi)
+            continue;
+        const double *t = tab;
+        if (tab == NULL) {
+            sy_dyn_modal_eval(c->modal, cs->io[k], cs->ih[k], b, c->scratch, c->pw, NULL);
+            t = c->pw;
+        } else {
+            t = tab + ((size_t)cs->io[k] * c->nh + cs->ih[k]) * c->nd;
+        }
+        for (size_t q = 0; q < c->nd; q++)
+            p += cs->a2[k] * t[q];
+    }
+    return p;
 }
 
 static void scale(double *v, size_t n, double f)
@@ -328,6 +354,11 @@ static void store_bin(const ctx *c, sy_yield_result *r, int st, size_t k, const 
     y->power_array[t] = parr;
     y->power_iso[t] = piso;
     y->damping[t] = b;
+    double mech = 0;
+    for (size_t q = 0; q < nd; q++)
+        mech += c->pdev[q];
+    for (size_t j = 0; j < c->nb && mech > 0; j++) /* electrical share in proportion to the mechanical */
+        y->energy_band[j] += c->seas->hours[k] * parr * c->pband[j] / mech;
     y->stroke_limited[t] = (unsigned char)limited;
     y->n_stroke_exceeded += limited == 2;
 }
@@ -356,6 +387,8 @@ static void store_from_tables(ctx *c, sy_yield_result *r, int st, double *iso, d
             c->vdev[q] = s->hs2[k] * gv[g * nd + q];
             iso[q] = s->hs2[k] * gi[g * nd + q];
         }
+        for (size_t j = 0; j < c->nb; j++)
+            c->pband[j] = s->hs2[k] * group_band(c, g, j, c->tab_p, 0);
         store_bin(c, r, st, k, iso, b, 0);
     }
 }
@@ -454,6 +487,8 @@ static int strategy_per_sea_state(ctx *c, sy_yield_result *r)
         scale(c->pdev, nd, s->hs2[k]);
         scale(c->vdev, nd, s->hs2[k]);
         scale(iso, nd, s->hs2[k]);
+        for (size_t j = 0; j < c->nb; j++)
+            c->pband[j] = s->hs2[k] * group_band(c, g, j, NULL, b);
         store_bin(c, r, SY_TUNING_PER_SEA_STATE, k, iso, b, limited);
     }
     free(iso);
@@ -518,6 +553,15 @@ static int strategy_bound(ctx *c, sy_yield_result *r)
     for (size_t k = 0; rc == SY_OK && k < s->n; k++) {
         size_t t = s->bin[k], g = s->group[k];
         y->power_array[t] = c->m->efficiency * s->hs2[k] * ga[2 * g];
+        for (size_t j = 0; j < c->nb; j++) {
+            double pb = 0;
+            for (size_t q = c->full.start[g]; q < c->full.start[g + 1]; q++) {
+                double w = c->db->omega[c->full.io[q]];
+                if (w >= c->bands[2 * j] && w <= c->bands[2 * j + 1])
+                    pb += c->full.a2[q] * arr[c->full.io[q] * nh + c->full.ih[q]];
+            }
+            y->energy_band[j] += s->hours[k] * c->m->efficiency * s->hs2[k] * pb;
+        }
         y->power_iso[t] = c->m->efficiency * s->hs2[k] * ga[2 * g + 1];
         for (size_t q = 0; q < nd; q++)
             y->power[t * nd + q] = y->power_iso_dev[t * nd + q] = NAN;
@@ -546,13 +590,16 @@ void sy_yield_result_free(sy_yield_result *r)
         free(y->stroke_limited);
         free(y->energy);
         free(y->q_omega);
+        free(y->energy_band);
     }
+    free(r->band_fraction);
     free(r->omega);
     free(r->headings);
     free(r);
 }
 
-static int result_alloc(sy_yield_result **out, size_t nt, size_t nd, const sy_hydro_db *db, sy_error *err)
+static int result_alloc(sy_yield_result **out, size_t nt, size_t nd, const sy_hydro_db *db, size_t nb,
+                        sy_error *err)
 {
     sy_yield_result *r = calloc(1, sizeof *r);
     size_t ng = db->n_omega * db->n_headings;
@@ -566,6 +613,9 @@ static int result_alloc(sy_yield_result **out, size_t nt, size_t nd, const sy_hy
             memcpy(r->omega, db->omega, db->n_omega * sizeof *r->omega);
             memcpy(r->headings, db->headings, db->n_headings * sizeof *r->headings);
         }
+        r->n_bands = nb;
+        r->band_fraction = calloc(nt * (nb ? nb : 1), sizeof *r->band_fraction);
+        ok = ok && r->band_fraction;
         r->hours = calloc(nt, sizeof *r->hours);
         r->resource = calloc(nt, sizeof *r->resource);
         ok = ok && r->hours && r->resource;
@@ -581,6 +631,8 @@ static int result_alloc(sy_yield_result **out, size_t nt, size_t nd, const sy_hy
             y->stroke_limited = calloc(nt, sizeof *y->stroke_limited);
             y->energy = calloc(nd, sizeof *y->energy);
             y->q_omega = malloc(ng * sizeof *y->q_omega);
+            y->energy_band = calloc(nb ? nb : 1, sizeof *y->energy_band);
+            ok = ok && y->energy_band;
             for (size_t i = 0; y->q_omega != NULL && i < ng; i++)
                 y->q_omega[i] = NAN;
             ok = ok && y->q_omega && y->power && y->power_array && y->power_iso && y->power_iso_dev && y->energy_iso_dev && y->damping && y->stroke && y->stroke_limited && y->energy;
@@ -669,9 +721,20 @@ static int check_iso(const sy_hydro_db *a, const sy_hydro_db *iso, size_t k, sy_
 int sy_yield_compute(sy_yield_result **out, const sy_model *m, const sy_climate_table *climate,
                      const sy_hydro_db *db, const sy_hydro_db *const *iso_db, sy_error *err)
 {
+    return sy_yield_compute_banded(out, m, climate, db, iso_db, NULL, 0, err);
+}
+
+int sy_yield_compute_banded(sy_yield_result **out, const sy_model *m, const sy_climate_table *climate,
+                            const sy_hydro_db *db, const sy_hydro_db *const *iso_db, const double *bands,
+                            size_t n_bands, sy_error *err)
+{
     ctx c;
     memset(&c, 0, sizeof c);
-    c.m = m, c.db = db, c.err = err;
+    c.m = m, c.db = db, c.err = err, c.bands = bands, c.nb = n_bands;
+    double pband_store[SY_YIELD_MAX_BANDS];
+    c.pband = pband_store;
+    if (n_bands > SY_YIELD_MAX_BANDS)
+        return sy_error_set(err, SY_EINVAL, "yield: %zu flagged bands exceed %d", n_bands, SY_YIELD_MAX_BANDS);
     c.no = db->n_omega, c.nh = db->n_headings;
     sy_yield_result *r = NULL;
     syi_yield_seas *seas = NULL;
@@ -736,7 +799,7 @@ int sy_yield_compute(sy_yield_result **out, const sy_model *m, const sy_climate_
             rc = sy_dyn_modal_create(&c.iso_modal[g], c.iso_plan[g], m->pto_stiffness, err);
     }
     if (rc == SY_OK)
-        rc = result_alloc(&r, sy_climate_table_size(climate), c.nd, db, err);
+        rc = result_alloc(&r, sy_climate_table_size(climate), c.nd, db, n_bands, err);
     if (rc == SY_OK) {
         for (size_t k = 0; k < seas->n; k++) {
             r->hours[seas->bin[k]] = seas->hours[k];
@@ -745,6 +808,18 @@ int sy_yield_compute(sy_yield_result **out, const sy_model *m, const sy_climate_
             r->mean_resource += seas->hours[k] * seas->resource[k];
         }
         r->mean_resource /= r->hours_covered;
+        for (size_t k = 0; k < seas->n; k++) /* spectral energy share of each bin inside each band */
+            for (size_t j = 0; j < n_bands; j++) {
+                size_t g = seas->group[k];
+                double in = 0, all = 0;
+                for (size_t q = c.full.start[g]; q < c.full.start[g + 1]; q++) {
+                    double w = db->omega[c.full.io[q]];
+                    all += c.full.a2[q];
+                    if (w >= bands[2 * j] && w <= bands[2 * j + 1])
+                        in += c.full.a2[q];
+                }
+                r->band_fraction[seas->bin[k] * n_bands + j] = in / all;
+            }
         r->max_outside = seas->max_outside;
         r->max_dir_outside = seas->max_dir_outside;
         rc = strategy_fixed(&c, r);

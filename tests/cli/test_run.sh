@@ -82,5 +82,22 @@ grep -q "zero.nc" "$tmp/err" && [ "$(wc -l <"$tmp/err")" -eq 1 ]; ok $? "zero to
 cmp -s "$tmp/first.json" "$tmp/out/summary.json"; ok $? "earlier outputs untouched after the failed run"
 ls -d "$tmp"/out.partial-* >/dev/null 2>&1; [ $? -ne 0 ]; ok $? "no staging folder left behind"
 
+# Resonances: the flagged bands reach summary.json and poles.csv is written.
+printf '[resonance]\nregion = 0.9:1.9:0.3\nq_threshold = 2\n' >>"$tmp/p.ini"
+"$prog" run "$tmp/p.ini" -o "$tmp/res" --quiet --resonances >/dev/null 2>"$tmp/err"
+ok $? "run --resonances exits 0 ($(head -c 200 "$tmp/err"))"
+[ -s "$tmp/res/poles.csv" ]; ok $? "poles.csv written"
+"$py" - "$tmp/res/summary.json" <<'PY'
+import json, sys
+s = json.load(open(sys.argv[1]))
+assert "found" in s["resonance_search"], s["resonance_search"]
+for b in s["flagged_bands"]:
+    assert b["omega_min"] < b["pole_re"] < b["omega_max"] or b["omega_min"] <= b["omega_max"]
+    assert b["Q"] > 2 and 0 <= b["energy_share"] <= 1, b
+    assert all(k in b for k in ["omega_min", "omega_max", "pole_re", "pole_im", "Q", "energy_share"])
+print(len(s["flagged_bands"]), "flagged bands")
+PY
+ok $? "summary.json flagged_bands well formed"
+
 echo "$pass passed, $fail failed"
 [ "$fail" -eq 0 ]

@@ -222,6 +222,36 @@ static void narrow(void)
     sy_climate_table_free(t);
 }
 
+/* Band accounting is a partition: a band holding every frequency holds all the energy,
+ * two complementary bands add up to it (our own bookkeeping; no outside reference). */
+static void bands(void)
+{
+    sy_model m;
+    sy_model_device dev;
+    make_model(&m, &dev);
+    m.rated_power = 3e4; /* the cap is shared out in proportion too */
+    sy_hydro_db *db = make_db(81, 0.3, 2.3, 0);
+    const sy_hydro_db *iso[1] = {db};
+    sy_climate_table *t = one_bin(2.0, 8.0);
+    double b[6] = {0.0, 10.0, 0.0, 0.9, 0.9 + 1e-9, 10.0};
+    sy_yield_result *r = NULL;
+    sy_error err = SY_ERROR_INIT;
+    if (db && t && sy_check_ok(sy_yield_compute_banded(&r, &m, t, db, iso, b, 3, &err), &err, "banded yield")) {
+        for (int st = 0; st < SY_YIELD_N_STRATEGIES; st++) {
+            const sy_yield_strategy *y = &r->s[st];
+            sy_check_close(y->energy_band[0], y->energy_array, 1e-12, 0, "%s: a band over all frequencies holds all energy",
+                           sy_yield_strategy_name(st));
+            sy_check_close(y->energy_band[1] + y->energy_band[2], y->energy_array, 1e-12, 0,
+                           "%s: complementary bands add up", sy_yield_strategy_name(st));
+        }
+        sy_check_close(r->band_fraction[0], 1.0, 1e-12, 0, "spectral fraction in the all-frequency band");
+        sy_check_close(r->band_fraction[1] + r->band_fraction[2], 1.0, 1e-12, 0, "complementary spectral fractions");
+    }
+    sy_yield_result_free(r);
+    sy_hydro_db_free(db);
+    sy_climate_table_free(t);
+}
+
 int main(void)
 {
     sy_init();
@@ -229,5 +259,6 @@ int main(void)
     passive_optimum();
     resolution();
     narrow();
+    bands();
     return sy_check_summary();
 }
