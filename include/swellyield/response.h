@@ -30,9 +30,10 @@
  * for a float, so agreement is best after the first few periods (measured in
  * tests/poles/test_response.c). The pulse pole sum holds only after the pulse (t > tau).
  *
- * Default grid: Omega = max(6, 8 max omega_r) rad/s, d_omega = min(gamma_min / 25, 0.01)
- * rad/s (a few thousand array solves); tests/poles/test_response.c uses Omega = 6 rad/s,
- * d_omega = 0.005 rad/s for a float resonating at 1.22 rad/s.
+ * Default grid: Omega = max(5, 5 max omega_r) rad/s, d_omega = min(gamma_min / 12, 0.01)
+ * rad/s (Filon error ~1e-3 of the peak; several hundred array solves);
+ * tests/poles/test_response.c uses Omega = 6 rad/s, d_omega = 0.005 rad/s for a float
+ * resonating at 1.22 rad/s.
  * Direct inversion. x(t) = (1/pi) int_0^Omega (.) d omega on a uniform real grid
  * omega_j = j d_omega, j = 0..N (Omega = N d_omega), the smooth factor linear between grid
  * points and the oscillating e^{-i omega t} integrated exactly (piecewise-linear Filon
@@ -68,8 +69,8 @@ typedef struct sy_response_settings {
     double duration;    /* PULSE: half-sine length tau, s (> 0); DECAY: unused */
     double t_end;       /* output times t_j = j t_end / (n_times - 1), s (> 0) */
     size_t n_times;     /* >= 2 */
-    double omega_max;   /* direct inversion grid end Omega, rad/s (0: 8 max(omega_r), >= 6) */
-    double d_omega;     /* grid step, rad/s (0: min(gamma_min / 25, 0.01)) */
+    double omega_max;   /* direct inversion grid end Omega, rad/s (0: 5 max(omega_r), >= 5) */
+    double d_omega;     /* grid step, rad/s (0: min(gamma_min / 12, 0.01)) */
 } sy_response_settings;
 
 typedef struct sy_response {
@@ -98,6 +99,15 @@ SY_API void sy_response_free(sy_response *r);
  *   time_s, then per dof "pole_sum_<device>_<mode>", "direct_<device>_<mode>" (m or rad).
  * Written atomically (a failed write leaves no file). SY_EIO with the path on failure. */
 SY_API int sy_response_write_csv(const sy_response *r, const sy_model *model, const char *path, sy_error *err);
+
+/* For the `poles` verb's -o PREFIX: PREFIX_decay.csv (body 0 released from 1 m heave) and
+ * PREFIX_pulse.csv (body 0 pushed by a half-sine heave force of rho g pi a^2 x 1 m, the
+ * static force of a 1 m heave, lasting a quarter of the slowest motion pole's period),
+ * both over 15 such periods, 40 samples per period, default grids. SY_EINPUT if `poles`
+ * has no motion pole with Re > 0; statuses of sy_poles_response and the writer. Each file
+ * is written atomically. */
+SY_API int sy_poles_response_files(const sy_model *model, const sy_pole_set *poles, const char *prefix,
+                                   sy_error *err);
 
 #ifdef __cplusplus
 }

@@ -17,6 +17,7 @@
  *    water between the floats), improving steadily;
  *  - the CSV has the header and one row per time; bad settings give one-line messages. */
 #include "check.h"
+#include "tmpfiles.h"
 #include "poles/poles_impl.h"
 #include "swellyield/swellyield.h"
 
@@ -111,7 +112,9 @@ static void one_float(void)
         /* Early mismatch: the neglected background is visible in the first period. */
         sy_check_true(window_error(r, 0, 0, period) > 1e-2, "one float, decay: pole sum off by %.3g in the first period",
                       window_error(r, 0, 0, period));
-        char path[] = "test_response_decay.csv";
+        char path[1024], dir[1000];
+        snprintf(dir, sizeof dir, "%s", sy_test_tmpdir());
+        snprintf(path, sizeof path, "%s/decay.csv", dir);
         if (sy_check_ok(sy_response_write_csv(r, &m, path, &err), &err, "decay CSV")) {
             FILE *f = fopen(path, "r");
             char line[512];
@@ -126,8 +129,8 @@ static void one_float(void)
             if (f != NULL)
                 fclose(f);
             sy_check_true(header && rows == 401, "decay CSV: header and 401 rows (got %d, %zu)", header, rows);
-            remove(path);
         }
+        sy_test_rmtree(dir);
     }
     sy_response_free(r);
     r = NULL;
@@ -137,6 +140,35 @@ static void one_float(void)
     if (sy_check_ok(sy_poles_response(&r, &m, ps, &p, &err), &err, "one float: pulse"))
         agreement(r, 0, window_max(r, 0, 0, 80), tau, period, 2, 2e-3, "one float, pulse");
     sy_response_free(r);
+    /* The verb's files, default grids: 15 periods, 40 samples each; the decay file's pole
+     * sum and direct columns agree after 2 periods as above (coarser default grid). */
+    const char *dir = sy_test_tmpdir();
+    char prefix[1024], names[2][1100];
+    snprintf(prefix, sizeof prefix, "%s/out", dir);
+    snprintf(names[0], sizeof names[0], "%s_decay.csv", prefix);
+    snprintf(names[1], sizeof names[1], "%s_pulse.csv", prefix);
+    if (sy_check_ok(sy_poles_response_files(&m, ps, prefix, &err), &err, "response files")) {
+        for (int k = 0; k < 2; k++) {
+            FILE *f = fopen(names[k], "r");
+            char line[512];
+            size_t rows = 0;
+            double emax = 0;
+            while (f != NULL && fgets(line, sizeof line, f) != NULL) {
+                double t, a, b;
+                if (line[0] == '#' || strncmp(line, "time_s", 6) == 0 || sscanf(line, "%lf,%lf,%lf", &t, &a, &b) != 3)
+                    continue;
+                rows++;
+                if (k == 0 && t > 2 * period)
+                    emax = fmax(emax, fabs(a - b));
+            }
+            if (f != NULL)
+                fclose(f);
+            sy_check_true(rows == 601, "%s: 601 rows (got %zu)", names[k], rows);
+            if (k == 0)
+                sy_check_true(emax < 2e-3, "%s: pole sum and direct agree to %.3g m after 2 periods", names[k], emax);
+        }
+    }
+    sy_test_rmtree(dir);
     sy_pole_set_free(ps);
 }
 
