@@ -24,7 +24,7 @@ int main(void)
     m.depth = 50, m.rho = 1025, m.g = 9.81, m.shape = SY_SHAPE_FLOAT, m.radius = 5, m.draft = 4;
     m.mass_displaced = 1, m.modes = SY_MODES_HEAVE, m.has_pto = 1, m.efficiency = 0.8, m.rated_power = 5e5;
     m.max_stroke = 4, m.spectrum = SY_SPECTRUM_JONSWAP, m.gamma = 3.3, m.spreading = 10, m.direction_from = 250;
-    m.x_axis_bearing = 75 * M_PI / 180, m.pto_damping = 2e5, m.tolerance = 1e-4, m.max_bodies = 100;
+    m.x_axis_bearing = 75 * M_PI / 180, m.pto_damping = 2e5, m.pto_mode = 3, m.tolerance = 1e-4, m.max_bodies = 100;
     m.omega = omega, m.n_omega = 120, m.headings = heads, m.n_headings = 36;
     strcpy(m.path, "bench"), strcpy(m.climate, "invented 30 x 30 table");
     for (int i = 0; i < 9; i++) {

@@ -65,6 +65,11 @@ SY_API void sy_hydro_set_free(sy_hydro_set *set);
 SY_API int sy_hydro_plan_create(sy_array_plan **out, const sy_model *model, const sy_model_device *dev,
                                 size_t n, sy_error *err);
 
+/* The angular orders M and depth modes Q the rule above (or the model's overrides)
+ * gives for n of the model's devices. */
+SY_API void sy_hydro_truncation(const sy_model *model, const sy_model_device *dev, size_t n, size_t *orders,
+                                size_t *depth_modes);
+
 #ifdef __cplusplus
 }
 #endif

@@ -93,6 +93,7 @@ typedef struct sy_model {
     double rated_power;                    /* W; INFINITY when absent */
     double max_stroke;                     /* m; INFINITY when absent */
     sy_tuning tuning;
+    int pto_mode;                          /* 1..5, the mode the PTO acts on */
     /* [layout] */
     char layout[SY_MODEL_PATH_MAX];
     sy_model_device *devices;

@@ -36,7 +36,8 @@ static void on_progress(void *ctx, size_t done, size_t total)
     sy_progress_step(p, done);
 }
 
-static void print_summary(const sy_model *m, const sy_yield_result *r, const char *dir)
+static void print_summary(const sy_model *m, const sy_yield_result *r, const char *dir, const char *note,
+                          const sy_flagged_band *bands, size_t nb)
 {
     int head = (int)m->tuning;
     const sy_yield_strategy *y = &r->s[head];
@@ -59,6 +60,11 @@ static void print_summary(const sy_model *m, const sy_yield_result *r, const cha
     if (r->max_dir_outside > 0.01)
         printf("  note: up to %.1f %% of a sea state's spreading lies outside [solve] headings\n",
                100 * r->max_dir_outside);
+    printf("\n  resonances: %s\n", note);
+    for (size_t j = 0; j < nb; j++)
+        printf("  flagged band %.3f..%.3f rad/s (pole %.4f%+.4fi, Q %.1f): %.1f %% of the annual energy\n",
+               bands[j].omega_min, bands[j].omega_max, creal(bands[j].pole), cimag(bands[j].pole), bands[j].q,
+               100 * r->s[m->tuning].energy_band[j] / r->s[m->tuning].energy_array);
     printf("\n  outputs in %s (summary.json, power_matrix.nc/.csv, devices.csv, hydro.nc)\n\ncautions:\n", dir);
     const char *t = sy_outputs_cautions();
     while (*t) {
@@ -111,8 +117,9 @@ int sy_cmd_run(int argc, char **argv)
     if (rc == SY_OK && m->shape != SY_SHAPE_FLOAT)
         rc = sy_error_set(&err, SY_EINPUT, "%s: [device] shape = column has no PTO: run needs floats (use hydro for columns)",
                           m->path);
-    if (rc == SY_OK && !(m->modes & SY_MODE_BIT(3)))
-        rc = sy_error_set(&err, SY_EINPUT, "%s: [device] modes must include heave (the PTO acts on heave)", m->path);
+    if (rc == SY_OK && !(m->modes & SY_MODE_BIT(m->pto_mode)))
+        rc = sy_error_set(&err, SY_EINPUT, "%s: [device] modes must include %s, the [pto] mode", m->path,
+                          sy_model_mode_name(m->pto_mode));
     if (rc == SY_OK)
         rc = sy_climate_table_load(&cl, m->climate, &err);
     /* Inputs are valid from here on; the cache may be created. */
@@ -173,13 +180,7 @@ int sy_cmd_run(int argc, char **argv)
         sy_outputs_abort(&st);
     int code = rc == SY_OK ? SY_EXIT_OK : sy_cli_fail("run", rc, &err);
     if (rc == SY_OK)
-        print_summary(m, yr, st.dir);
-    if (rc == SY_OK && !sy_cli_quiet() && want_res)
-        printf("  resonances: %s\n", note);
-    for (size_t j = 0; rc == SY_OK && j < nb; j++)
-        printf("  flagged band %.3f..%.3f rad/s (pole %.4f%+.4fi, Q %.1f): %.1f %% of the annual energy\n",
-               bands[j].omega_min, bands[j].omega_max, creal(bands[j].pole), cimag(bands[j].pole), bands[j].q,
-               100 * yr->s[m->tuning].energy_band[j] / yr->s[m->tuning].energy_array);
+        print_summary(m, yr, st.dir, note, bands, nb);
     sy_pole_set_free(ps);
     sy_yield_result_free(yr);
     sy_hydro_set_free(hs);

@@ -56,6 +56,28 @@ static int db_from_results(sy_hydro_db *db, size_t first, sy_array_hydro **res, 
     return SY_OK;
 }
 
+/* Geometry of the layout: largest radius, smallest centre distance, smallest gap. */
+static void layout_extent(const sy_model_device *dev, size_t n, double *a_max, double *l_min, double *gap)
+{
+    *a_max = 0, *l_min = INFINITY, *gap = INFINITY;
+    for (size_t b = 0; b < n; b++) {
+        *a_max = fmax(*a_max, dev[b].radius);
+        for (size_t c = 0; c < b; c++) {
+            double l = hypot(dev[b].x - dev[c].x, dev[b].y - dev[c].y);
+            *l_min = fmin(*l_min, l);
+            *gap = fmin(*gap, l - dev[b].radius - dev[c].radius);
+        }
+    }
+}
+
+void sy_hydro_truncation(const sy_model *m, const sy_model_device *dev, size_t n, size_t *orders, size_t *depth)
+{
+    double a_max, l_min, gap;
+    layout_extent(dev, n, &a_max, &l_min, &gap);
+    *orders = m->orders ? m->orders : angular_order(m, a_max, l_min);
+    *depth = m->depth_modes ? m->depth_modes : depth_modes(m, gap);
+}
+
 int sy_hydro_plan_create(sy_array_plan **out, const sy_model *m, const sy_model_device *dev, size_t n,
                          sy_error *err)
 {
@@ -64,7 +86,6 @@ int sy_hydro_plan_create(sy_array_plan **out, const sy_model *m, const sy_model_
     sy_array_body *bodies = calloc(n, sizeof *bodies);
     int rc = types && bodies ? SY_OK : sy_error_set(err, SY_ENOMEM, "array of %zu bodies", n);
     size_t nt = 0;
-    double a_max = 0, gap = INFINITY, l_min = INFINITY;
     for (size_t b = 0; rc == SY_OK && b < n; b++) {
         const sy_model_device *d = &dev[b];
         size_t t;
@@ -80,16 +101,9 @@ int sy_hydro_plan_create(sy_array_plan **out, const sy_model *m, const sy_model_
             nt++;
         }
         bodies[b].x = d->x, bodies[b].y = d->y, bodies[b].type = t;
-        a_max = fmax(a_max, d->radius);
-        for (size_t c = 0; c < b; c++) {
-            double l = hypot(d->x - dev[c].x, d->y - dev[c].y);
-            l_min = fmin(l_min, l);
-            gap = fmin(gap, l - d->radius - dev[c].radius);
-        }
     }
-    sy_array_settings s = {m->depth, m->rho, m->g, m->tolerance,
-                           m->orders ? m->orders : angular_order(m, a_max, l_min),
-                           m->depth_modes ? m->depth_modes : depth_modes(m, gap), 1e-3};
+    sy_array_settings s = {m->depth, m->rho, m->g, m->tolerance, 0, 0, 1e-3};
+    sy_hydro_truncation(m, dev, n, &s.n_order, &s.n_depth);
     /* Memory bound: one dense complex matrix of N (2M+1) Q unknowns per thread. */
     double nu = (double)n * (double)(2 * s.n_order + 1) * (double)s.n_depth, bytes = 16.0 * nu * nu;
     if (rc == SY_OK && bytes > SY_HYDRO_MAX_MATRIX_BYTES)

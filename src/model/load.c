@@ -14,7 +14,7 @@
 enum {
     K_DEPTH, K_DENSITY, K_GRAVITY, K_CLIMATE, K_BEARING,
     K_SHAPE, K_RADIUS, K_DRAFT, K_MASS, K_MODES, K_MOORING, K_VISCOUS,
-    K_DAMPING, K_STIFFNESS, K_EFFICIENCY, K_RATED, K_STROKE, K_TUNING,
+    K_DAMPING, K_STIFFNESS, K_EFFICIENCY, K_RATED, K_STROKE, K_TUNING, K_PTO_MODE,
     K_LAYOUT_FILE,
     K_SPECTRUM, K_GAMMA, K_SPREADING, K_PERIOD, K_DIRECTION,
     K_OMEGA, K_HEADINGS, K_TOLERANCE, K_MAX_BODIES, K_MAX_OMEGA, K_ORDERS, K_DEPTH_MODES,
@@ -35,6 +35,7 @@ static const struct {
     [K_DAMPING] = {"pto", "damping"},        [K_STIFFNESS] = {"pto", "stiffness"},
     [K_EFFICIENCY] = {"pto", "efficiency"},  [K_RATED] = {"pto", "rated_power"},
     [K_STROKE] = {"pto", "max_stroke"},      [K_TUNING] = {"pto", "tuning"},
+    [K_PTO_MODE] = {"pto", "mode"},
     [K_LAYOUT_FILE] = {"layout", "file"},
     [K_SPECTRUM] = {"sea", "spectrum"},      [K_GAMMA] = {"sea", "gamma"},
     [K_SPREADING] = {"sea", "spreading"},    [K_PERIOD] = {"sea", "period"},
@@ -311,6 +312,13 @@ static int convert(sy_model *m, const reader *r, sy_error *err)
     static const char *const tunings[] = {"fixed", "per_sea_state", "site_optimal", "reactive_bound"};
     TRY(word(&c, K_TUNING, &v, 0, tunings, 4, "fixed, per_sea_state, site_optimal, reactive_bound"));
     m->tuning = (sy_tuning)v;
+    static const char *const pto_modes[] = {"surge", "sway", "heave", "roll", "pitch"};
+    TRY(word(&c, K_PTO_MODE, &v, 2, pto_modes, 5, "surge, sway, heave, roll, pitch"));
+    m->pto_mode = v + 1;
+    if ((m->has_pto || r->e[K_PTO_MODE].line) && !(m->modes & SY_MODE_BIT(m->pto_mode)))
+        return sy_error_set(err, SY_EINPUT, "%s:%zu: [pto] mode = %s is not among [device] modes", r->path,
+                            r->e[K_PTO_MODE].line ? r->e[K_PTO_MODE].line : r->e[K_MODES].line,
+                            sy_model_mode_name(m->pto_mode));
 
     if (!r->e[K_LAYOUT_FILE].line)
         return missing(&c, K_LAYOUT_FILE, "a CSV with header name,x,y");

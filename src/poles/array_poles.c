@@ -13,6 +13,7 @@
 #include <string.h>
 
 #define N_POINTS 64        /* trapezoid points on the ellipse: geometric convergence */
+#define POLES_BODY_TOL 1e-9
 #define RANK_TOL 1e-10     /* singular values of the moment matrix below this (relative) are noise */
 #define POLISH_TOL 1e-12   /* secant stop when the hydrodynamics are tight enough for it */
 #define MAX_POLES 256
@@ -147,7 +148,13 @@ int sy_poles_find(sy_pole_set **out, const sy_model *m, unsigned kinds, sy_error
         return sy_error_set(err, SY_ENOMEM, "pole search");
     }
     set->count[0] = set->count[1] = set->count[2] = SY_POLES_NOT_SEARCHED;
-    rc = sy_hydro_plan_create(&plan, m, m->devices, m->n_devices, err);
+    /* The same truncation as the run, but the body solves to 1e-9: the float chooses its
+     * exterior modes per frequency from the tolerance, and the contour integrals and the
+     * polish need T analytic well below the accuracy asked of the poles. */
+    sy_model mt = *m;
+    sy_hydro_truncation(m, m->devices, m->n_devices, &mt.orders, &mt.depth_modes);
+    mt.tolerance = fmin(m->tolerance, POLES_BODY_TOL);
+    rc = sy_hydro_plan_create(&plan, &mt, m->devices, m->n_devices, err);
     if (rc == SY_OK)
         rc = sy_array_work_alloc(&work, plan, err);
     if (rc == SY_OK)
@@ -178,7 +185,7 @@ int sy_poles_find(sy_pole_set **out, const sy_model *m, unsigned kinds, sy_error
             db->dof_body[d] = (int)b, db->dof_mode[d] = mode;
         }
         if (rc == SY_OK)
-            rc = sy_dyn_plan_create(&dyn, m, db, 3, err);
+            rc = sy_dyn_plan_create(&dyn, m, db, m->pto_mode, err);
         if (rc == SY_OK)
             sy_dyn_plan_matrices(dyn, &mc.mass, &mc.stiff, &mc.visc);
     }
@@ -203,7 +210,7 @@ int sy_poles_find(sy_pole_set **out, const sy_model *m, unsigned kinds, sy_error
         syi_nep nep = {nd, motion_solve, &mc, scale};
         /* The polish can only resolve the pole as well as T is analytic: the float body's
          * truncation (chosen per frequency from the tolerance) bounds it. */
-        syi_nep_settings st = {N_POINTS, nd, 4, RANK_TOL, fmax(POLISH_TOL, 1e-2 * m->tolerance), 11};
+        syi_nep_settings st = {N_POINTS, nd, 4, RANK_TOL, fmax(POLISH_TOL, 1e-2 * mt.tolerance), 11};
         syi_nep_result r;
         rc = syi_nep_contour(&nep, &ell, &st, eig, MAX_POLES - set->n, &r, err);
         if (rc == SY_OK) {

@@ -8,7 +8,7 @@
 #include <stdlib.h>
 #include <string.h>
 
-#define POLISH_MAX_ITER 40
+#define POLISH_MAX_ITER 16
 #define DEDUP_REL 1e-7   /* two polished eigenvalues closer than this (relative) are one */
 #define INSIDE_MARGIN 1e-9
 #define NOTHING_INSIDE 1e-9 /* moments this small relative to |T^-1 V| r: no eigenvalue inside */
@@ -43,12 +43,9 @@ static int polish(const syi_nep *p, const syi_nep_settings *st, double complex w
                   double complex *x, syi_nep_eig *out, size_t *evals, sy_error *err)
 {
     size_t n = p->n;
-    double complex wprev = w0 * (1.0 + 1e-7) + 1e-9, w = w0, gprev = 0, g = 0;
+    double complex wprev = w0 * (1.0 + 1e-7) + 1e-9, w = w0, gprev = 0, g = 0, wbest = w0;
+    double last_step = INFINITY, gbest = INFINITY;
     int rc = SY_OK, conv = 0;
-    size_t i0 = 0;
-    for (size_t i = 1; i < n; i++)
-        if (cabs(v[i]) > cabs(v[i0]))
-            i0 = i;
     for (int it = 0; it < POLISH_MAX_ITER && !conv; it++) {
         for (int pass = (it == 0 ? 0 : 1); pass < 2; pass++) {
             double complex at = pass == 0 ? wprev : w;
@@ -68,22 +65,24 @@ static int polish(const syi_nep *p, const syi_nep_settings *st, double complex w
                 gprev = gv;
             else
                 g = gv;
+            if (cabs(gv) < gbest) /* |g| ~ distance to the eigenvalue: keep the closest point */
+                gbest = cabs(gv), wbest = at;
         }
         if (conv)
             break;
         double complex step = g * (w - wprev) / (g - gprev);
         if (!isfinite(creal(step)) || !isfinite(cimag(step)))
             break;
-        /* Inverse-iteration update of v keeps it aligned with the eigenvector. Scaled so
-         * that one fixed entry stays 1: a unit-norm scaling would rotate v's phase every
-         * step, multiply g by a new phase and break the secant (for n = 1 it never
-         * converged). With the fixed entry, g changes only by the shrinking eigenvector
-         * correction. */
-        if (x[i0] == 0)
+        /* v stays fixed: g is then one analytic function with a simple zero at the
+         * eigenvalue, which the secant needs (v is refined once, at the end). */
+        /* Past the first steps a secant on an analytic function shrinks its step
+         * superlinearly; a step that stops shrinking means T's own noise (truncation that
+         * varies with omega) has been reached: stop there, not polished. */
+        if (it >= 3 && cabs(step) > 0.5 * last_step) {
+            w = wbest;
             break;
-        double complex xi0 = x[i0];
-        for (size_t i = 0; i < n; i++)
-            v[i] = x[i] / xi0;
+        }
+        last_step = cabs(step);
         wprev = w, gprev = g;
         w -= step;
         conv = cabs(step) <= st->polish_tol * cabs(w);

@@ -14,8 +14,6 @@
 #include <stdlib.h>
 #include <string.h>
 
-/* The PTO acts on heave (dynamics.h: one mode per device, heave by default). */
-#define SY_PTO_MODE 3
 
 /* Search range for the shared damping, relative to the isolated device's passive optimum
  * at the bin's energy frequency: +-3 decades hold every sensible PTO setting. */
@@ -325,12 +323,12 @@ static double reference_damping(const ctx *c, size_t g)
         if (fabs(iso->omega[i] - c->seas->omega_e[g]) < fabs(iso->omega[io] - c->seas->omega_e[g]))
             io = i;
     for (size_t i = 0; i < n; i++)
-        if (iso->dof_mode[i] == SY_PTO_MODE)
+        if (iso->dof_mode[i] == c->m->pto_mode)
             dof = i;
     double om = iso->omega[io];
-    double b = sy_dyn_passive_optimum(om, sy_dyn_mass(c->iso_plan[0], 0, SY_PTO_MODE),
+    double b = sy_dyn_passive_optimum(om, sy_dyn_mass(c->iso_plan[0], 0, c->m->pto_mode),
                                       iso->added_mass[(io * n + dof) * n + dof], iso->damping[(io * n + dof) * n + dof],
-                                      sy_dyn_stiffness(c->iso_plan[0], 0, SY_PTO_MODE) + c->m->pto_stiffness);
+                                      sy_dyn_stiffness(c->iso_plan[0], 0, c->m->pto_mode) + c->m->pto_stiffness);
     return b > 0 && isfinite(b) ? b : 1e5; /* 1e5 N s/m: order of a 5 m float's radiation damping */
 }
 
@@ -743,7 +741,7 @@ int sy_yield_compute_banded(sy_yield_result **out, const sy_model *m, const sy_c
     if (rc == SY_OK && seas->n == 0)
         rc = sy_error_set(err, SY_EINPUT, "climate %s: no bin has non-zero occurrence", m->climate);
     if (rc == SY_OK)
-        rc = sy_dyn_plan_create(&c.plan, m, db, SY_PTO_MODE, err);
+        rc = sy_dyn_plan_create(&c.plan, m, db, m->pto_mode, err);
     if (rc == SY_OK)
         rc = sy_dyn_work_alloc(&c.work, c.plan, err);
     if (rc == SY_OK) {
@@ -792,7 +790,7 @@ int sy_yield_compute_banded(sy_yield_result **out, const sy_model *m, const sy_c
         c.iso_model[g].devices = (sy_model_device *)&m->devices[body];
         c.iso_model[g].n_devices = 1;
         c.n_iso++;
-        rc = sy_dyn_plan_create(&c.iso_plan[g], &c.iso_model[g], iso, SY_PTO_MODE, err);
+        rc = sy_dyn_plan_create(&c.iso_plan[g], &c.iso_model[g], iso, m->pto_mode, err);
         if (rc == SY_OK)
             rc = sy_dyn_work_alloc(&c.iso_work[g], c.iso_plan[g], err);
         if (rc == SY_OK)

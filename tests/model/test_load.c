@@ -34,6 +34,7 @@ static void good(const char *dir)
     sy_check_true(m->modes == (SY_MODE_BIT(1) | SY_MODE_BIT(3)), "modes heave + surge");
     sy_check_close(m->efficiency, 0.8, 0, 0, "efficiency");
     sy_check_true(m->tuning == SY_TUNING_PER_SEA_STATE, "tuning");
+    sy_check_true(m->pto_mode == 3, "PTO on heave by default");
     sy_check_true(m->n_devices == 3, "three devices (comment line skipped)");
     sy_check_close(m->devices[0].pto_damping, 3e5, 0, 0, "empty damping cell takes [pto] damping");
     sy_check_close(m->devices[1].pto_damping, 2.5e5, 0, 0, "per-device damping");
@@ -88,6 +89,8 @@ static const struct {
     {NULL, NULL, "[pto]\nefficiency = 0\n", NULL, "[pto] efficiency must be in (0, 1], got 0"},
     {NULL, NULL, "[pto]\ndamping = -1e5\n", NULL, "[pto] damping must be >= 0 N s/m, got -100000"},
     {NULL, NULL, "[pto]\ntuning = best\n", NULL, "tuning = 'best' is not one of fixed, per_sea_state"},
+    {NULL, NULL, "[pto]\nmode = pitch\n", NULL, "[pto] mode = pitch is not among [device] modes"},
+    {NULL, NULL, "[pto]\nmode = yaw\n", NULL, "[pto] mode = 'yaw' is not one of surge, sway, heave, roll, pitch"},
     {NULL, NULL, "[sea]\nspectrum = pm\n", NULL, "spectrum = 'pm' is not one of jonswap, bretschneider"},
     {NULL, NULL, "[sea]\nspectrum = bretschneider\ngamma = 3.3\n", NULL, "gamma applies to spectrum = jonswap only"},
     {NULL, NULL, "[solve]\nomega = 1.0:0.5:10\n", NULL, "[solve] omega: '1.0:0.5:10': max must be > min"},

@@ -24,7 +24,7 @@ static void model(sy_model *m, sy_model_device *dev, size_t n, const double *x, 
     m->depth = 50, m->rho = RHO, m->g = G, m->shape = SY_SHAPE_FLOAT, m->radius = 5, m->draft = 4;
     m->mass_displaced = 1, m->modes = SY_MODES_HEAVE, m->has_pto = 1, m->efficiency = 1;
     m->rated_power = INFINITY, m->max_stroke = INFINITY, m->spectrum = SY_SPECTRUM_JONSWAP, m->gamma = 3.3;
-    m->direction_from = NAN, m->pto_damping = 2e5, m->tolerance = 1e-6, m->max_bodies = 100;
+    m->direction_from = NAN, m->pto_damping = 2e5, m->tolerance = 1e-6, m->max_bodies = 100, m->pto_mode = 3;
     m->omega = omega, m->n_omega = no, m->headings = heads, m->n_headings = nh;
     strcpy(m->path, "test"), strcpy(m->climate, "test climate");
     for (size_t i = 0; i < n; i++) {

@@ -51,7 +51,7 @@ static void make_model(sy_model *m, sy_model_device *dev)
     m->depth = 60, m->rho = 1025, m->g = 9.81, m->shape = SY_SHAPE_FLOAT, m->radius = 5, m->draft = 4;
     m->mass_displaced = 1, m->modes = SY_MODES_HEAVE, m->has_pto = 1, m->efficiency = 1;
     m->rated_power = INFINITY, m->max_stroke = INFINITY, m->spectrum = SY_SPECTRUM_JONSWAP, m->gamma = 3.3;
-    m->direction_from = NAN, m->pto_damping = 2e5;
+    m->direction_from = NAN, m->pto_damping = 2e5, m->pto_mode = 3;
     dev->radius = 5, dev->draft = 4, dev->pto_damping = 2e5;
     strcpy(dev->name, "F1");
     m->devices = dev, m->n_devices = 1;
