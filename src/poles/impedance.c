@@ -76,7 +76,7 @@ int syi_imp_create(syi_imp **out, const sy_model *m, int with_pto, sy_error *err
             p->heave[b] = d;
     }
     if (rc == SY_OK)
-        rc = sy_dyn_plan_create(&p->dyn, m, p->db, 3, err);
+        rc = sy_dyn_plan_create(&p->dyn, m, p->db, m->pto_mode, err);
     if (rc == SY_OK) {
         sy_dyn_plan_matrices(p->dyn, &p->mass, &p->stiff, &p->visc);
         for (size_t i = 0; i < nd * nd; i++)

@@ -34,7 +34,7 @@ static void model(sy_model *m, sy_model_device *dev, size_t n, const double *x, 
     static double omega[2] = {0.4, 2.4}; /* the truncation is chosen for this band */
     memset(m, 0, sizeof *m);
     m->depth = 50, m->rho = RHO, m->g = G, m->shape = SY_SHAPE_FLOAT, m->radius = 5, m->draft = 4;
-    m->mass_displaced = 1, m->modes = SY_MODES_HEAVE, m->has_pto = 1, m->efficiency = 1;
+    m->mass_displaced = 1, m->modes = SY_MODES_HEAVE, m->has_pto = 1, m->pto_mode = 3, m->efficiency = 1;
     m->rated_power = INFINITY, m->max_stroke = INFINITY, m->spectrum = SY_SPECTRUM_JONSWAP, m->gamma = 3.3;
     m->direction_from = NAN, m->pto_damping = bpto, m->tolerance = 1e-8, m->max_bodies = 100;
     m->omega = omega, m->n_omega = 2;
@@ -46,6 +46,10 @@ static void model(sy_model *m, sy_model_device *dev, size_t n, const double *x, 
         dev[i].x = x[i], dev[i].radius = 5, dev[i].draft = 4, dev[i].pto_damping = bpto;
     }
     m->devices = dev, m->n_devices = n;
+    /* The truncation sy_poles_find uses (the run's orders, body solves to 1e-9), so that
+     * the impedance evaluated here is the same analytic function as the search's. */
+    m->tolerance = 1e-9;
+    sy_hydro_truncation(m, dev, n, &m->orders, &m->depth_modes);
 }
 
 /* Largest |pole sum - direct| of dof d over t in [t0, t1). */
