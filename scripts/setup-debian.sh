@@ -10,6 +10,7 @@ pkgs=(
   libflint-arb-dev libflint-dev
   libplplot-dev plplot-driver-cairo
   python3 python3-numpy python3-scipy python3-mpmath python3-netcdf4
+  clang libclang-rt-14-dev  # only for the optional SY_FUZZ harnesses (docs/robustness.md)
 )
 missing=()
 for p in "${pkgs[@]}"; do

@@ -43,6 +43,15 @@ extern "C" {
  * records into mean annual hours: 365.25 d x 24 h (references.md 5.1, from memory). */
 #define SY_CLIMATE_HOURS_PER_YEAR 8766.0
 
+/* Resource bounds on what a file may ask the readers to allocate, checked from the
+ * declared dimensions before any read (a tiny NetCDF file may declare huge unwritten
+ * dimensions). Both are far above any real table or record: a scatter table of 10^7
+ * cells is 80 MB of doubles; 2 x 10^7 records are 2 300 years of hourly data (five
+ * arrays of doubles, 800 MB). Raise them here and rebuild if you really mean it;
+ * exceeding one is SY_ELIMIT with a message naming the file, dimension and limit. */
+#define SY_CLIMATE_MAX_CELLS ((size_t)10000000)
+#define SY_CLIMATE_MAX_RECORDS ((size_t)20000000)
+
 /* Which period the table's period axis holds. */
 typedef enum {
     SY_CLIMATE_TE = 0,  /* energy period Te = m_{-1}/m_0 */

@@ -38,7 +38,10 @@ typedef struct sy_outputs_stage {
     char stage[SY_OUTPUTS_PATH_MAX + 32];  /* folder being written */
 } sy_outputs_stage;
 
-/* Create the staging folder for dir. SY_EIO naming the path on failure. */
+/* Create the staging folder for dir. SY_EIO naming the path on failure. Also removes
+ * staging folders "<dir>.partial-<pid>" left by processes that no longer exist (a run
+ * killed by a signal), handing back a cache one carried when dir has none; folders of
+ * live processes are left alone (kill(pid, 0); assumes one machine's pid space). */
 SY_API int sy_outputs_begin(sy_outputs_stage *st, const char *dir, sy_error *err);
 /* Path of file `name` inside the staging folder (static-free: into buf). */
 SY_API int sy_outputs_path(const sy_outputs_stage *st, const char *name, char *buf, size_t cap,

@@ -12,6 +12,7 @@
 #include <stdio.h>
 #include <stdlib.h>
 #include <string.h>
+#include <unistd.h>
 
 static const char *help =
     "usage: swellyield run [PROJECT.ini] [-o DIR] [--jobs N] [--quiet]\n"
@@ -130,8 +131,12 @@ int sy_cmd_run(int argc, char **argv)
     }
     /* The cache must outlive a killed run, so it lives in DIR itself (created empty if
      * new); the outputs proper appear only at the atomic swap. */
-    if (rc == SY_OK && mkdir(st.dir, 0777) != 0 && errno != EEXIST)
-        rc = sy_error_set(&err, SY_EIO, "%s: cannot create the output folder: %s", st.dir, strerror(errno));
+    int made_dir = 0;
+    if (rc == SY_OK) {
+        made_dir = mkdir(st.dir, 0777) == 0;
+        if (!made_dir && errno != EEXIST)
+            rc = sy_error_set(&err, SY_EIO, "%s: cannot create the output folder: %s", st.dir, strerror(errno));
+    }
     sy_progress prog = {0};
     if (rc == SY_OK)
         rc = sy_hydro_build(&hs, m, 1, cache, jobs, on_progress, &prog, &err);
@@ -176,8 +181,13 @@ int sy_cmd_run(int argc, char **argv)
         rc = sy_outputs_write_poles(path, m, ps, &err);
     if (rc == SY_OK)
         rc = sy_outputs_commit(&st, &err);
-    if (rc != SY_OK)
+    if (rc != SY_OK) {
         sy_outputs_abort(&st);
+        /* A run refused before solving anything leaves no trace: an empty cache, and the
+         * folder if this run made it, go (rmdir keeps them when they hold anything). */
+        if (st.dir[0] != '\0' && rmdir(cache) == 0 && made_dir)
+            (void)rmdir(st.dir);
+    }
     int code = rc == SY_OK ? SY_EXIT_OK : sy_cli_fail("run", rc, &err);
     if (rc == SY_OK)
         print_summary(m, yr, st.dir, note, bands, nb);

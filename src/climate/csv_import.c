@@ -6,6 +6,7 @@
  * of the limits in the file; a row must cover exactly one bin between neighbouring
  * edges, and each bin may appear once. Units: m, s, nautical degrees (from). */
 #include "climate_impl.h"
+#include "core/core_impl.h"
 
 #include <csv.h>
 #include <ctype.h>
@@ -374,6 +375,9 @@ static int build(importer *im, sy_climate_table **out)
 /* Whole file into memory, NUL-terminated. */
 static int slurp(const char *path, char **text, sy_error *err)
 {
+    int rc = syi_check_input_file(path, SYI_TEXT_MAX_BYTES, err);
+    if (rc != SY_OK)
+        return rc;
     FILE *f = fopen(path, "rb");
     if (f == NULL)
         return sy_error_set(err, SY_EIO, "%s: cannot open: %s", path, strerror(errno));

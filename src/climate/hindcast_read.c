@@ -4,9 +4,11 @@
  * of the type), missing_value, valid_min/valid_max/valid_range compared in packed form
  * (CF 1.12 section 8.1, references.md 6.2); such records and NaNs become NAN. */
 #include "climate_impl.h"
+#include "core/core_impl.h"
 
 #include <math.h>
 #include <netcdf.h>
+#include <stdint.h>
 #include <stdio.h>
 #include <stdlib.h>
 #include <string.h>
@@ -239,6 +241,12 @@ static int read_series(reader *r, sy_climate_series *s, sy_climate_period_kind w
     int dim;
     size_t n;
     rc = record_dim(r, v_hs, hs_name, &dim, &n);
+    if (rc == SY_OK && n > SY_CLIMATE_MAX_RECORDS)
+        rc = sy_error_set(r->err, SY_ELIMIT,
+                          "%s: variable '%s' has %zu records, above the limit of %zu "
+                          "(SY_CLIMATE_MAX_RECORDS in include/swellyield/climate.h: raise it "
+                          "and rebuild if you mean it)", r->path, hs_name, n,
+                          SY_CLIMATE_MAX_RECORDS);
     if (rc != SY_OK)
         return rc;
     /* Time: standard_name "time" or axis "T", 1-D over the record dimension. */
@@ -386,6 +394,9 @@ int sy_climate_series_read(sy_climate_series **out, const char *path,
         return sy_error_set(err, SY_EINVAL, "hindcast read: period kind %d, expected Te or Tp",
                             (int)period);
     *out = NULL;
+    int rc0 = syi_check_input_file(path, SIZE_MAX, err); /* missing, a directory, ... */
+    if (rc0 != SY_OK)
+        return rc0;
     sy_climate_series *s = calloc(1, sizeof *s);
     if (s == NULL)
         return sy_error_set(err, SY_ENOMEM, "%s: series", path);

@@ -4,9 +4,11 @@
  * bounds variables, which must be contiguous (upper edge of bin i = lower edge of bin
  * i + 1) and contain their centres. */
 #include "climate_impl.h"
+#include "core/core_impl.h"
 
 #include <math.h>
 #include <netcdf.h>
+#include <stdint.h>
 #include <stdio.h>
 #include <stdlib.h>
 #include <string.h>
@@ -211,7 +213,7 @@ static int get_dim(reader *r, const char *name, int required, int *dimid, size_t
 static int read_contents(reader *r, sy_climate_table **out)
 {
     int d_hs, d_per, d_dir, d_bnd;
-    size_t n_hs, n_per, n_dir, n_bnd;
+    size_t n_hs = 0, n_per = 0, n_dir = 0, n_bnd = 0;
     int rc = get_dim(r, "hs", 1, &d_hs, &n_hs);
     if (rc == SY_OK)
         rc = get_dim(r, "period", 1, &d_per, &n_per);
@@ -222,6 +224,13 @@ static int read_contents(reader *r, sy_climate_table **out)
     if (rc == SY_OK && n_bnd != 2)
         rc = sy_error_set(r->err, SY_EINPUT, "%s: dimension 'bound' has length %zu, expected 2",
                           r->path, n_bnd);
+    double cells = (double)n_hs * (double)n_per * (double)(n_dir > 0 ? n_dir : 1);
+    if (rc == SY_OK && cells > (double)SY_CLIMATE_MAX_CELLS)
+        rc = sy_error_set(r->err, SY_ELIMIT,
+                          "%s: dimensions hs x period x direction = %zu x %zu x %zu declare %.3g "
+                          "bins, above the limit of %zu (SY_CLIMATE_MAX_CELLS in "
+                          "include/swellyield/climate.h: raise it and rebuild if you mean it)",
+                          r->path, n_hs, n_per, n_dir, cells, SY_CLIMATE_MAX_CELLS);
     if (rc != SY_OK)
         return rc;
     size_t nmax = n_hs > n_per ? n_hs : n_per;
@@ -380,6 +389,9 @@ int sy_climate_table_read(sy_climate_table **out, const char *path, sy_error *er
         return sy_error_set(err, SY_EINVAL, "scatter table read: NULL argument");
     *out = NULL;
     reader r = {-1, path, err};
+    int rc0 = syi_check_input_file(path, SIZE_MAX, err); /* missing, a directory, ... */
+    if (rc0 != SY_OK)
+        return rc0;
     int st = nc_open(path, NC_NOWRITE, &r.ncid);
     if (st != NC_NOERR)
         return sy_error_set(err, SY_EIO, "%s: cannot open as NetCDF: %s", path,

@@ -290,7 +290,7 @@ int sy_climate_table_validate(const sy_climate_table *t, const char *where, sy_e
                             "%s: variable 'occurrence': total %s is %g, expected at most %g",
                             w, sy_climate_occurrence_name(t->kind), total, limit);
     if (t->meta.depth == t->meta.depth && !(t->meta.depth > 0.0))
-        return sy_error_set(err, SY_EINPUT, "%s: water depth %g m, expected > 0", w,
+        return sy_error_set(err, SY_EINPUT, "%s: variable 'depth': water depth %g m, expected > 0", w,
                             t->meta.depth);
     return SY_OK;
 }

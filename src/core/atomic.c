@@ -2,7 +2,11 @@
  * any moment leaves either the previous file or the new one, never a mix. */
 #include "core_impl.h"
 
+#include <ctype.h>
+#include <dirent.h>
 #include <errno.h>
+#include <signal.h>
+#include <stdlib.h>
 #include <stdio.h>
 #include <string.h>
 #include <unistd.h>
@@ -31,6 +35,27 @@ int syi_atomic_commit(const char *tmp, const char *path, sy_error *err)
 }
 
 void syi_atomic_abort(const char *tmp) { unlink(tmp); }
+
+void syi_atomic_sweep(const char *dir)
+{
+    DIR *d = opendir(dir);
+    if (d == NULL)
+        return;
+    struct dirent *e;
+    while ((e = readdir(d)) != NULL) {
+        const char *tag = e->d_name[0] == '.' ? strstr(e->d_name, ".tmp-") : NULL;
+        if (tag == NULL || tag == e->d_name || !isdigit((unsigned char)tag[5]))
+            continue;
+        char *end;
+        long pid = strtol(tag + 5, &end, 10);
+        if (*end != '\0' || pid <= 0 || pid == (long)getpid() || kill((pid_t)pid, 0) == 0 || errno != ESRCH)
+            continue;
+        char path[4096];
+        if (snprintf(path, sizeof path, "%s/%s", dir, e->d_name) < (int)sizeof path)
+            (void)unlink(path);
+    }
+    closedir(d);
+}
 
 unsigned long long syi_hash64(unsigned long long h, const void *data, size_t n)
 {

@@ -55,6 +55,10 @@ int syi_atomic_tmpname(const char *path, char *tmp, size_t cap, sy_error *err);
 int syi_atomic_commit(const char *tmp, const char *path, sy_error *err);
 /* Remove tmp if it exists (after a failed write). */
 void syi_atomic_abort(const char *tmp);
+/* Remove the temporaries ".<name>.tmp-<pid>" in folder dir left by processes that no
+ * longer exist (killed between creating and renaming them: kill(pid, 0) gives ESRCH).
+ * Best effort, never fails; temporaries of live processes are left alone. */
+void syi_atomic_sweep(const char *dir);
 
 /* 64-bit FNV-1a hash of n bytes, chained from h (start with SYI_HASH_SEED). */
 #define SYI_HASH_SEED 0xcbf29ce484222325ULL

@@ -22,7 +22,8 @@ int syi_check_input_file(const char *path, size_t max_bytes, sy_error *err)
     if (!S_ISREG(st.st_mode))
         return sy_error_set(err, SY_EIO, "%s: not a regular file", path);
     if ((size_t)st.st_size > max_bytes)
-        return sy_error_set(err, SY_EIO, "%s: %lld bytes, larger than the %zu-byte limit for this input",
+        return sy_error_set(err, SY_EIO, "%s: %lld bytes, larger than the %zu-byte limit for this input (SYI_TEXT_MAX_BYTES "
+                            "in src/core/core_impl.h: raise it and rebuild if you mean it)",
                             path, (long long)st.st_size, max_bytes);
     return SY_OK;
 }

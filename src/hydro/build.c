@@ -241,6 +241,8 @@ int sy_hydro_build(sy_hydro_set **out, const sy_model *m, int with_isolated, con
 {
     if (cache_dir != NULL && mkdir(cache_dir, 0777) != 0 && errno != EEXIST)
         return sy_error_set(err, SY_EIO, "%s: cannot create the cache folder: %s", cache_dir, strerror(errno));
+    if (cache_dir != NULL)
+        syi_atomic_sweep(cache_dir); /* blocks half-written by a killed run */
     sy_hydro_set *set = calloc(1, sizeof *set);
     size_t *rep = calloc(m->n_devices, sizeof *rep); /* representative device of each isolated class */
     if (set == NULL || rep == NULL || (set->iso_of_device = calloc(m->n_devices, sizeof *set->iso_of_device)) == NULL ||

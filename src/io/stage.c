@@ -3,7 +3,11 @@
 #define _GNU_SOURCE 1
 #include "swellyield/outputs.h"
 
+#include <ctype.h>
+#include <dirent.h>
 #include <errno.h>
+#include <signal.h>
+#include <stdlib.h>
 #include <fcntl.h>
 #include <ftw.h>
 #include <stdio.h>
@@ -21,6 +25,52 @@ static int rm_entry(const char *path, const struct stat *sb, int flag, struct FT
 
 static void rmtree(const char *path) { nftw(path, rm_entry, 16, FTW_DEPTH | FTW_PHYS); }
 
+/* Staging folders "<dir>.partial-<pid>" of processes that no longer exist (killed by
+ * SIGKILL or SIGINT before they could clean up) are removed, after handing a cache they
+ * carried back to <dir> if <dir> has none (a kill between the cache hand-over and the
+ * swap). kill(pid, 0) failing with ESRCH is the test for "no longer exists"; a folder of
+ * a live process, or of a pid we may not signal (EPERM: alive), is left alone. Assumes
+ * the processes writing into the parent folder share this machine's pid space (not so
+ * for a folder shared over a network by several hosts: there a live run's folder whose
+ * pid is free here would be removed). Best effort: failures only leave the folder. */
+static void remove_stale_stages(const char *dir)
+{
+    const char *slash = strrchr(dir, '/');
+    char parent[SY_OUTPUTS_PATH_MAX];
+    const char *base = slash ? slash + 1 : dir;
+    if (slash == NULL)
+        snprintf(parent, sizeof parent, ".");
+    else if (slash == dir)
+        snprintf(parent, sizeof parent, "/");
+    else
+        snprintf(parent, sizeof parent, "%.*s", (int)(slash - dir), dir);
+    size_t nb = strlen(base);
+    DIR *d = opendir(parent);
+    if (d == NULL)
+        return;
+    struct dirent *e;
+    while ((e = readdir(d)) != NULL) {
+        const char *name = e->d_name, *p = name + nb + 9; /* after "<base>.partial-" */
+        if (strncmp(name, base, nb) != 0 || strncmp(name + nb, ".partial-", 9) != 0 || *p == '\0')
+            continue;
+        char *end;
+        long pid = strtol(p, &end, 10);
+        if (*end != '\0' || !isdigit((unsigned char)*p) || pid <= 0 || pid == (long)getpid())
+            continue;
+        if (kill((pid_t)pid, 0) == 0 || errno != ESRCH)
+            continue;
+        char stale[SY_OUTPUTS_PATH_MAX + 300], from[SY_OUTPUTS_PATH_MAX + 310], to[SY_OUTPUTS_PATH_MAX + 8];
+        struct stat sb;
+        snprintf(stale, sizeof stale, "%s/%s", parent, name);
+        snprintf(from, sizeof from, "%s/cache", stale);
+        snprintf(to, sizeof to, "%s/cache", dir);
+        if (stat(dir, &sb) == 0 && S_ISDIR(sb.st_mode) && stat(to, &sb) != 0 && stat(from, &sb) == 0)
+            (void)rename(from, to);
+        rmtree(stale);
+    }
+    closedir(d);
+}
+
 int sy_outputs_begin(sy_outputs_stage *st, const char *dir, sy_error *err)
 {
     size_t n = strlen(dir);
@@ -35,6 +85,7 @@ int sy_outputs_begin(sy_outputs_stage *st, const char *dir, sy_error *err)
     if (stat(st->dir, &sb) == 0 && !S_ISDIR(sb.st_mode))
         return sy_error_set(err, SY_EINPUT, "%s: exists and is not a folder", st->dir);
     rmtree(st->stage); /* a leftover of an earlier process with the same pid */
+    remove_stale_stages(st->dir);
     if (mkdir(st->stage, 0777) != 0)
         return sy_error_set(err, SY_EIO, "%s: cannot create: %s", st->stage, strerror(errno));
     return SY_OK;

@@ -71,11 +71,20 @@ typedef struct reader {
 static char *read_line(char *str, int num, void *stream)
 {
     reader *r = stream;
+    long before = ftell(r->f);
     if (r->rc != SY_OK || fgets(str, num, r->f) == NULL)
         return NULL;
     r->line++;
     r->err_line = r->line; /* only read when r->rc is set */
     size_t n = strlen(str);
+    /* fgets reads through a NUL byte, which would silently cut the line short: the
+     * bytes consumed and the string's length differ exactly then. */
+    long after = ftell(r->f);
+    if (before >= 0 && after >= 0 && (size_t)(after - before) != n) {
+        r->rc = sy_error_set(r->err, SY_EINPUT, "%s:%zu: NUL byte in the line, expected UTF-8 text", r->path,
+                             r->line);
+        return NULL;
+    }
     if (n + 1 == (size_t)num && str[n - 1] != '\n' && !feof(r->f)) {
         r->rc = sy_error_set(r->err, SY_EINPUT, "%s:%zu: line longer than %d characters", r->path,
                              r->line, num - 2);
@@ -89,7 +98,12 @@ static char *read_line(char *str, int num, void *stream)
      * section without keys would otherwise pass silently. */
     const char *p = str + strspn(str, " \t");
     if (*p == '[') {
-        size_t len = strcspn(p + 1, "]"), ns = sizeof sections / sizeof sections[0], s;
+        size_t len = strcspn(p + 1, "]\r\n"), ns = sizeof sections / sizeof sections[0], s;
+        if (p[1 + len] != ']') { /* found by fuzzing: the newline went into the message */
+            r->rc = sy_error_set(r->err, SY_EINPUT, "%s:%zu: section header '[%.*s' lacks its closing ']'",
+                                 r->path, r->line, (int)len, p + 1);
+            return NULL;
+        }
         for (s = 0; s < ns && !(strlen(sections[s]) == len && strncmp(p + 1, sections[s], len) == 0); s++)
             ;
         if (s == ns) {

@@ -12,31 +12,8 @@ trap 'rm -rf "$tmp"' EXIT
 pass=0 fail=0
 ok() { if [ "$1" -eq 0 ]; then echo "PASS: $2"; pass=$((pass + 1)); else echo "FAIL: $2"; fail=$((fail + 1)); fi; }
 
-printf 'name,x,y\nP1,0,0\nP2,30,12\n' >"$tmp/layout.csv"
-cat >"$tmp/p.ini" <<INI
-; invented test project
-[site]
-depth = 25
-climate = $src/seastates/sheltered_site.nc
-[device]
-shape = float
-radius = 4
-draft = 3
-[pto]
-damping = 1.5e5
-efficiency = 0.75
-rated_power = 3e5
-max_stroke = 3
-tuning = site_optimal
-[layout]
-file = layout.csv
-[sea]
-spectrum = bretschneider
-[solve]
-omega = 0.3:2.8:26
-headings = 0:330:12
-tolerance = 1e-4
-INI
+source "$src/tests/cli/small_project.sh"
+small_project "$tmp" "$src"
 
 "$prog" run "$tmp/p.ini" -o "$tmp/out" --quiet >"$tmp/stdout" 2>"$tmp/stderr"
 ok $? "run exits 0"

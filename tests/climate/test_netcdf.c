@@ -361,7 +361,7 @@ int main(int argc, char **argv)
                    "cannot open as NetCDF: NetCDF: Unknown file format", "junk file: %s", err.msg);
     remove(junk);
     sy_check_fails(sy_climate_table_read(&r, in_dir("absent.nc"), &err), SY_EIO, &err,
-                   "absent.nc: cannot open as NetCDF: No such file or directory",
+                   "absent.nc: cannot open: No such file or directory",
                    "absent file: %s", err.msg);
 
     /* Atomic writer. */

@@ -78,6 +78,7 @@ static const struct {
     {"[site]\ndepth = 30\n[sites]\nx = 1\n", NULL, NULL, NULL, "p.ini:3: unknown section '[sites]'"},
     {"[site]\n", NULL, NULL, NULL, "missing key 'depth' in [site]"},
     {"[site]\ndepth 30\n", NULL, NULL, NULL, "p.ini:2: expected 'key = value' or '[section]'"},
+    {"[site]\ndepth = 30\n[sea\n", NULL, NULL, NULL, "p.ini:3: section header '[sea' lacks its closing ']'"},
     {NULL, "[device]\nshape = float\nradius = 3\ndraft = 30\n", NULL, NULL, "p.ini:6: [device] draft must be < [site] depth 30 m"},
     {NULL, "[device]\nshape = float\nradius = 3\ndraft = 40\n", NULL, NULL, "draft must be < [site] depth"},
     {NULL, "[device]\nshape = float\nradius = 0\ndraft = 2\n", NULL, NULL, "p.ini:5: [device] radius must be > 0 m, got 0"},
