@@ -16,4 +16,5 @@
 #include "swellyield/hydro.h"
 #include "swellyield/poles.h"
 #include "swellyield/plot.h"
+#include "swellyield/response.h"
 #endif

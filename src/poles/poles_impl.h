@@ -71,3 +71,27 @@ int syi_nep_contour(const syi_nep *p, const syi_ellipse *c, const syi_nep_settin
 int syi_ellipse_inside(const syi_ellipse *c, double complex omega, double m);
 
 #endif
+
+/* ---- The array's mechanical impedance at a complex frequency (impedance.c) ----------
+ * Z(omega) = C + K_pto - omega^2 M - i omega (Z_rad(omega) + B_pto + B_visc), n_dof x n_dof
+ * row-major, body-major dofs (conventions.md equation of motion; Z_rad = B - i omega A from
+ * sy_array_solve). Used by the time response (response.c) and by tests; one object per
+ * thread (it owns array work). */
+struct sy_model;
+typedef struct syi_imp syi_imp;
+
+/* with_pto: 1 adds each device's PTO damping and stiffness on its PTO dof (heave). */
+int syi_imp_create(syi_imp **out, const struct sy_model *model, int with_pto, sy_error *err);
+void syi_imp_free(syi_imp *imp);
+size_t syi_imp_n_dof(const syi_imp *imp);
+/* Dof index of body b's heave (SIZE_MAX if the body has no heave dof). */
+size_t syi_imp_heave_dof(const syi_imp *imp, size_t body);
+/* z[n*n] = Z(omega); zrad[n*n] (optional, NULL) = Z_rad + B_pto + B_visc, i.e. everything
+ * multiplied by -i omega. Rows/columns body-major, row-major storage. */
+int syi_imp_eval(syi_imp *imp, double complex omega, double complex *z, double complex *zdamp, sy_error *err);
+/* Static stiffness K0 = Z(0) = C + K_pto (row-major, owned by imp), and mass M. */
+const double *syi_imp_k0(const syi_imp *imp);
+const double *syi_imp_mass(const syi_imp *imp);
+/* B_pto + B_visc per dof (diagonal, [n_dof]); body index and mode (1..5) of dof d. */
+const double *syi_imp_damping(const syi_imp *imp);
+void syi_imp_dof(const syi_imp *imp, size_t d, int *body, int *mode);
