@@ -15,9 +15,11 @@
  * iteration to max(1e-12, tolerance / 100) relative (the float body's truncation, chosen
  * per frequency from [solve] tolerance, makes T analytic only to about that level; use
  * tolerance 1e-8 or tighter for poles to 1e-10), see src/poles/poles_impl.h. For the motion family the
- * count adds the winding of det(I - D T) (Z_rad has poles where the scattering operator
- * is singular), so count = motion poles found when every scattering zero inside couples
- * to the motion. */
+ * count is the winding number of det Z, i.e. zeros minus poles of det Z inside (Z_rad can
+ * have poles where the bodies' own scattering is resonant, at close spacing): the count then
+ * falls short of the zeros, and as it also caps the number of eigenvalues extracted
+ * (the singular values of the moments are polluted by the float's per-frequency
+ * truncation), poles can be missed at such spacings (open, issue #6). */
 #ifndef SWELLYIELD_POLES_H
 #define SWELLYIELD_POLES_H
 

@@ -52,9 +52,6 @@ static int motion_solve(void *p, double complex w, size_t nrhs, const double com
     motion_ctx *c = p;
     size_t n = c->nd;
     int rc = sy_array_solve(c->plan, w, c->work, c->res, err);
-    double complex scat = 0;
-    if (rc == SY_OK && logdet != NULL)
-        rc = sy_array_factored_logdet(c->plan, c->work, &scat, err);
     if (rc != SY_OK)
         return rc;
     for (size_t i = 0; i < n; i++)
@@ -68,7 +65,7 @@ static int motion_solve(void *p, double complex w, size_t nrhs, const double com
     if (info > 0)
         return sy_error_set(err, SY_ESINGULAR, "array impedance singular at omega = %g%+gi", creal(w), cimag(w));
     if (logdet != NULL)
-        *logdet = lu_logdet(c->t, c->ipiv, n) + scat;
+        *logdet = lu_logdet(c->t, c->ipiv, n);
     if (nrhs > 0) {
         if (x != rhs)
             memcpy(x, rhs, n * nrhs * sizeof *x);
