@@ -60,7 +60,7 @@ cmp -s "$tmp/first.json" "$tmp/out/summary.json"; ok $? "earlier outputs untouch
 ls -d "$tmp"/out.partial-* >/dev/null 2>&1; [ $? -ne 0 ]; ok $? "no staging folder left behind"
 
 # Resonances: the flagged bands reach summary.json and poles.csv is written.
-printf '[resonance]\nregion = 0.9:1.9:0.3\nq_threshold = 2\n' >>"$tmp/p.ini"
+printf '[resonance]\nregion = 1.0:1.8:0.2\nq_threshold = 2\n' >>"$tmp/p.ini"
 "$prog" run "$tmp/p.ini" -o "$tmp/res" --quiet --resonances >/dev/null 2>"$tmp/err"
 ok $? "run --resonances exits 0 ($(head -c 200 "$tmp/err"))"
 [ -s "$tmp/res/poles.csv" ]; ok $? "poles.csv written"
