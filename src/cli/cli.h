@@ -30,6 +30,10 @@ int sy_cli_quiet(void);
 void sy_progress_start(sy_progress *p, const char *label, size_t total);
 void sy_progress_step(sy_progress *p, size_t done);
 void sy_progress_end(sy_progress *p);
+/* sy_hydro_build progress callback: ctx is a zeroed sy_progress, started on first call. */
+void sy_cli_hydro_progress(void *ctx, size_t done, size_t total);
+/* --jobs value 1..1024, or 0 if the text is not one. */
+int sy_cli_parse_jobs(const char *text);
 
 int sy_cmd_version(int argc, char **argv);
 int sy_cmd_check(int argc, char **argv);

@@ -18,14 +18,6 @@ static const char *help =
     "  -j, --jobs N       threads for the frequency sweep (default: all cores)\n"
     "  -q, --quiet        no progress bar\n";
 
-static void on_progress(void *ctx, size_t done, size_t total)
-{
-    sy_progress *p = ctx;
-    if (p->total == 0)
-        sy_progress_start(p, "hydro", total);
-    sy_progress_step(p, done);
-}
-
 int sy_cmd_hydro(int argc, char **argv)
 {
     static const struct option opts[] = {{"output", required_argument, NULL, 'o'}, {"cache", required_argument, NULL, 'c'},
@@ -40,14 +32,10 @@ int sy_cmd_hydro(int argc, char **argv)
         case 'o': out = optarg; break;
         case 'c': cache = optarg; break;
         case 'n': no_cache = 1; break;
-        case 'j': {
-            char *end;
-            long v = strtol(optarg, &end, 10);
-            if (*end != '\0' || v < 1 || v > 1024)
+        case 'j':
+            if ((jobs = sy_cli_parse_jobs(optarg)) == 0)
                 return sy_cli_usage_error("hydro", "--jobs expects a whole number 1..1024, got '%s'", optarg);
-            jobs = (int)v;
             break;
-        }
         case 'q': sy_cli_set_quiet(1); break;
         case 'h': fputs(help, stdout); return SY_EXIT_OK;
         default: return sy_cli_usage_error("hydro", "unknown option");
@@ -68,7 +56,7 @@ int sy_cmd_hydro(int argc, char **argv)
     int rc = sy_model_load(&m, argv[optind], &err);
     sy_progress prog = {0};
     if (rc == SY_OK)
-        rc = sy_hydro_build(&hs, m, 0, no_cache ? NULL : cache, jobs, on_progress, &prog, &err);
+        rc = sy_hydro_build(&hs, m, 0, no_cache ? NULL : cache, jobs, sy_cli_hydro_progress, &prog, &err);
     sy_progress_end(&prog);
     if (rc == SY_OK)
         rc = sy_hydro_db_write(hs->array, out, &err);

@@ -29,14 +29,6 @@ static const char *help =
     "                     report the share of the annual energy made inside them (poles.csv,\n"
     "                     summary.json flagged_bands); slower\n";
 
-static void on_progress(void *ctx, size_t done, size_t total)
-{
-    sy_progress *p = ctx;
-    if (p->total == 0)
-        sy_progress_start(p, "hydro", total);
-    sy_progress_step(p, done);
-}
-
 static void print_summary(const sy_model *m, const sy_yield_result *r, const char *dir, const char *note,
                           const sy_flagged_band *bands, size_t nb)
 {
@@ -88,14 +80,10 @@ int sy_cmd_run(int argc, char **argv)
     while ((c = getopt_long(argc, argv, "o:j:qhr", opts, NULL)) != -1) {
         switch (c) {
         case 'o': dir = optarg; break;
-        case 'j': {
-            char *end;
-            long v = strtol(optarg, &end, 10);
-            if (*end != '\0' || v < 1 || v > 1024)
+        case 'j':
+            if ((jobs = sy_cli_parse_jobs(optarg)) == 0)
                 return sy_cli_usage_error("run", "--jobs expects a whole number 1..1024, got '%s'", optarg);
-            jobs = (int)v;
             break;
-        }
         case 'q': sy_cli_set_quiet(1); break;
         case 'r': want_res = 1; break;
         case 'h': fputs(help, stdout); return SY_EXIT_OK;
@@ -139,7 +127,7 @@ int sy_cmd_run(int argc, char **argv)
     }
     sy_progress prog = {0};
     if (rc == SY_OK)
-        rc = sy_hydro_build(&hs, m, 1, cache, jobs, on_progress, &prog, &err);
+        rc = sy_hydro_build(&hs, m, 1, cache, jobs, sy_cli_hydro_progress, &prog, &err);
     sy_progress_end(&prog);
     /* Resonances (optional, not fatal): flagged bands of the motion poles with high Q. */
     sy_pole_set *ps = NULL;

@@ -3,6 +3,7 @@
 #include "cli.h"
 
 #include <stdio.h>
+#include <stdlib.h>
 #include <time.h>
 #include <unistd.h>
 
@@ -54,4 +55,19 @@ void sy_progress_end(sy_progress *p)
     sy_progress_step(p, p->total);
     fputc('\n', stderr);
     p->active = 0;
+}
+
+void sy_cli_hydro_progress(void *ctx, size_t done, size_t total)
+{
+    sy_progress *p = ctx;
+    if (p->total == 0)
+        sy_progress_start(p, "hydro", total);
+    sy_progress_step(p, done);
+}
+
+int sy_cli_parse_jobs(const char *text)
+{
+    char *end;
+    long v = strtol(text, &end, 10);
+    return *end == '\0' && v >= 1 && v <= 1024 ? (int)v : 0;
 }
