@@ -14,6 +14,8 @@
 
 #define N_POINTS 64        /* trapezoid points on the ellipse: geometric convergence */
 #define POLES_BODY_TOL 1e-9
+#define SAME_POLE 1e-6     /* poles closer than this (relative) from two sub-regions are one */
+#define MAX_SPLIT 2        /* a region whose contour fails is halved, at most twice */
 #define RANK_TOL 1e-10     /* singular values of the moment matrix below this (relative) are noise */
 #define POLISH_TOL 1e-12   /* secant stop when the hydrodynamics are tight enough for it */
 #define MAX_POLES 256
@@ -94,10 +96,10 @@ static int by_frequency(const void *a, const void *b)
 
 /* The ellipse over the region re_min..re_max x -im_depth..0: scaled by sqrt 2 so it covers
  * the rectangle, but kept clear of omega = 0 (branch point of the wavenumber). */
-static syi_ellipse region_ellipse(const sy_model *m)
+static syi_ellipse region_ellipse(double re_min, double re_max, double im_depth)
 {
-    double cr = 0.5 * (m->res_re_min + m->res_re_max), hw = 0.5 * (m->res_re_max - m->res_re_min);
-    syi_ellipse e = {cr - 0.5 * I * m->res_im_depth, fmin(M_SQRT2 * hw, 0.9 * cr), M_SQRT2 * 0.5 * m->res_im_depth};
+    double cr = 0.5 * (re_min + re_max), hw = 0.5 * (re_max - re_min);
+    syi_ellipse e = {cr - 0.5 * I * im_depth, fmin(M_SQRT2 * hw, 0.9 * cr), M_SQRT2 * 0.5 * im_depth};
     return e;
 }
 
@@ -106,8 +108,14 @@ static int add_poles(sy_pole_set *set, const syi_nep_eig *eig, const syi_nep_res
 {
     for (size_t i = 0; i < res->n_found; i++) {
         double complex w = eig[i].omega;
-        /* Keep only the region itself (the ellipse is larger). */
+        /* Keep only the region itself (the ellipse is larger), each pole once (the
+         * ellipses of a split region overlap). */
         if (creal(w) < m->res_re_min || creal(w) > m->res_re_max || cimag(w) < -m->res_im_depth || cimag(w) > 0)
+            continue;
+        int seen = 0;
+        for (size_t q = 0; q < set->n && !seen; q++)
+            seen = set->poles[q].kind == kind && cabs(set->poles[q].omega - w) <= SAME_POLE * cabs(w);
+        if (seen)
             continue;
         sy_pole *p = &set->poles[set->n];
         p->omega = w, p->omega_r = creal(w), p->gamma = -cimag(w);
@@ -186,7 +194,7 @@ int sy_poles_find(sy_pole_set **out, const sy_model *m, unsigned kinds, sy_error
         if (rc == SY_OK)
             sy_dyn_plan_matrices(dyn, &mc.mass, &mc.stiff, &mc.visc);
     }
-    syi_ellipse ell = region_ellipse(m);
+    syi_ellipse ell = region_ellipse(m->res_re_min, m->res_re_max, m->res_im_depth);
     set->centre = ell.centre, set->ax = ell.ax, set->ay = ell.ay;
     mc.plan = plan, mc.work = work, mc.res = res, mc.nd = nd;
     for (int pass = 0; rc == SY_OK && pass < 2 && dyn != NULL; pass++) {
@@ -208,12 +216,32 @@ int sy_poles_find(sy_pole_set **out, const sy_model *m, unsigned kinds, sy_error
         /* The polish can only resolve the pole as well as T is analytic: the float body's
          * truncation (chosen per frequency from the tolerance) bounds it. */
         syi_nep_settings st = {N_POINTS, nd, 4, RANK_TOL, fmax(POLISH_TOL, 1e-2 * mt.tolerance), 11};
-        syi_nep_result r;
-        rc = syi_nep_contour(&nep, &ell, &st, eig, MAX_POLES - set->n, &r, err);
-        if (rc == SY_OK) {
-            set->count[kind] = r.count;
-            set->evaluations += r.evaluations;
-            add_poles(set, eig, &r, kind, m, nd);
+        /* The whole region first; where the contour fails (capacity reached, e.g. the
+         * count is spoiled by poles of Z inside), halve it along Re omega and retry, at
+         * most MAX_SPLIT times: 1, 2, 4 ellipses. */
+        for (int level = 0; level <= MAX_SPLIT; level++) {
+            size_t parts = (size_t)1 << level, n_before = set->n, fk = set->found[kind];
+            int count = 0;
+            double w = (m->res_re_max - m->res_re_min) / (double)parts;
+            for (size_t q = 0; q < parts; q++) {
+                syi_ellipse e = region_ellipse(m->res_re_min + w * (double)q, m->res_re_min + w * (double)(q + 1),
+                                               m->res_im_depth);
+                syi_nep_result r;
+                rc = syi_nep_contour(&nep, &e, &st, eig, MAX_POLES - set->n, &r, err);
+                set->evaluations += r.evaluations;
+                if (rc != SY_OK)
+                    break;
+                count += r.count;
+                add_poles(set, eig, &r, kind, m, nd);
+            }
+            if (rc == SY_OK) {
+                set->count[kind] = count; /* sum over the sub-contours (overlaps may double-count) */
+                break;
+            }
+            if (rc != SY_ENOCONV || level == MAX_SPLIT)
+                break;
+            set->n = n_before, set->found[kind] = fk; /* retry the kind with smaller contours */
+            sy_error_clear(err);
         }
     }
     if (rc == SY_OK && (kinds & SY_POLES_SCATTERING)) {
