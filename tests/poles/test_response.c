@@ -17,6 +17,7 @@
  *    water between the floats), improving steadily;
  *  - the CSV has the header and one row per time; bad settings give one-line messages. */
 #include "check.h"
+#include "float_model.h"
 #include "tmpfiles.h"
 #include "poles/poles_impl.h"
 #include "swellyield/swellyield.h"
@@ -32,20 +33,9 @@
 static void model(sy_model *m, sy_model_device *dev, size_t n, const double *x, double bpto)
 {
     static double omega[2] = {0.4, 2.4}; /* the truncation is chosen for this band */
-    memset(m, 0, sizeof *m);
-    m->depth = 50, m->rho = RHO, m->g = G, m->shape = SY_SHAPE_FLOAT, m->radius = 5, m->draft = 4;
-    m->mass_displaced = 1, m->modes = SY_MODES_HEAVE, m->has_pto = 1, m->pto_mode = 3, m->efficiency = 1;
-    m->rated_power = INFINITY, m->max_stroke = INFINITY, m->spectrum = SY_SPECTRUM_JONSWAP, m->gamma = 3.3;
-    m->direction_from = NAN, m->pto_damping = bpto, m->tolerance = 1e-8, m->max_bodies = 100;
-    m->omega = omega, m->n_omega = 2;
+    sy_test_float_model(m, dev, n, x, NULL, omega, 2, NULL, 0);
+    sy_test_pto_damping(m, bpto);
     m->has_resonance = 1, m->res_re_min = 0.4, m->res_re_max = 2.4, m->res_im_depth = 0.8;
-    strcpy(m->path, "test"), strcpy(m->climate, "test climate");
-    for (size_t i = 0; i < n; i++) {
-        memset(&dev[i], 0, sizeof dev[i]);
-        snprintf(dev[i].name, sizeof dev[i].name, "F%zu", i + 1);
-        dev[i].x = x[i], dev[i].radius = 5, dev[i].draft = 4, dev[i].pto_damping = bpto;
-    }
-    m->devices = dev, m->n_devices = n;
     /* The truncation sy_poles_find uses (the run's orders, body solves to 1e-9), so that
      * the impedance evaluated here is the same analytic function as the search's. */
     m->tolerance = 1e-9;

@@ -8,6 +8,7 @@
  *  - the annual q-factor of two floats tends to 1 as their spacing grows (interaction
  *    decays like 1/sqrt(kL), common practice). */
 #include "check.h"
+#include "float_model.h"
 #include "swellyield/swellyield.h"
 
 #include <math.h>
@@ -20,19 +21,7 @@
 static void model(sy_model *m, sy_model_device *dev, size_t n, const double *x, const double *y, double *omega,
                   size_t no, double *heads, size_t nh)
 {
-    memset(m, 0, sizeof *m);
-    m->depth = 50, m->rho = RHO, m->g = G, m->shape = SY_SHAPE_FLOAT, m->radius = 5, m->draft = 4;
-    m->mass_displaced = 1, m->modes = SY_MODES_HEAVE, m->has_pto = 1, m->efficiency = 1;
-    m->rated_power = INFINITY, m->max_stroke = INFINITY, m->spectrum = SY_SPECTRUM_JONSWAP, m->gamma = 3.3;
-    m->direction_from = NAN, m->pto_damping = 2e5, m->tolerance = 1e-6, m->max_bodies = 100, m->pto_mode = 3;
-    m->omega = omega, m->n_omega = no, m->headings = heads, m->n_headings = nh;
-    strcpy(m->path, "test"), strcpy(m->climate, "test climate");
-    for (size_t i = 0; i < n; i++) {
-        memset(&dev[i], 0, sizeof dev[i]);
-        snprintf(dev[i].name, sizeof dev[i].name, "F%zu", i + 1);
-        dev[i].x = x[i], dev[i].y = y[i], dev[i].radius = 5, dev[i].draft = 4, dev[i].pto_damping = 2e5;
-    }
-    m->devices = dev, m->n_devices = n;
+    sy_test_float_model(m, dev, n, x, y, omega, no, heads, nh);
 }
 
 static void capture_width(void)

@@ -4,6 +4,7 @@
  * the stroke limit, the rated-power cap, the q-factor of one body, and convergence of the
  * spectral sum with frequency resolution. */
 #include "check.h"
+#include "float_model.h"
 #include "swellyield/yield.h"
 #include "swellyield/dynamics.h"
 #include "swellyield/sea.h"
@@ -46,15 +47,9 @@ static void worked_example(void)
 
 static void make_model(sy_model *m, sy_model_device *dev)
 {
-    memset(m, 0, sizeof *m);
-    memset(dev, 0, sizeof *dev);
-    m->depth = 60, m->rho = 1025, m->g = 9.81, m->shape = SY_SHAPE_FLOAT, m->radius = 5, m->draft = 4;
-    m->mass_displaced = 1, m->modes = SY_MODES_HEAVE, m->has_pto = 1, m->efficiency = 1;
-    m->rated_power = INFINITY, m->max_stroke = INFINITY, m->spectrum = SY_SPECTRUM_JONSWAP, m->gamma = 3.3;
-    m->direction_from = NAN, m->pto_damping = 2e5, m->pto_mode = 3;
-    dev->radius = 5, dev->draft = 4, dev->pto_damping = 2e5;
-    strcpy(dev->name, "F1");
-    m->devices = dev, m->n_devices = 1;
+    static double x0 = 0;
+    sy_test_float_model(m, dev, 1, &x0, NULL, NULL, 0, NULL, 0);
+    m->depth = 60;
 }
 
 /* Smooth invented coefficients (shapes only; not a real body): B rises then falls with

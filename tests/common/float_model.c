@@ -1,0 +1,32 @@
+/* Test helper: a model of floats built in code (see float_model.h). */
+#include "float_model.h"
+
+#include <math.h>
+#include <stdio.h>
+#include <string.h>
+
+void sy_test_float_model(sy_model *m, sy_model_device *dev, size_t n, const double *x, const double *y,
+                         double *omega, size_t n_omega, double *headings, size_t n_headings)
+{
+    memset(m, 0, sizeof *m);
+    m->depth = 50, m->rho = 1025, m->g = 9.81, m->shape = SY_SHAPE_FLOAT, m->radius = 5, m->draft = 4;
+    m->mass_displaced = 1, m->modes = SY_MODES_HEAVE, m->has_pto = 1, m->pto_mode = 3, m->efficiency = 1;
+    m->rated_power = INFINITY, m->max_stroke = INFINITY, m->spectrum = SY_SPECTRUM_JONSWAP, m->gamma = 3.3;
+    m->direction_from = NAN, m->tolerance = 1e-6, m->max_bodies = 100;
+    m->omega = omega, m->n_omega = n_omega, m->headings = headings, m->n_headings = n_headings;
+    strcpy(m->path, "test"), strcpy(m->climate, "test climate");
+    for (size_t i = 0; i < n; i++) {
+        memset(&dev[i], 0, sizeof dev[i]);
+        snprintf(dev[i].name, sizeof dev[i].name, "F%zu", i + 1);
+        dev[i].x = x[i], dev[i].y = y != NULL ? y[i] : 0.0, dev[i].radius = 5, dev[i].draft = 4;
+    }
+    m->devices = dev, m->n_devices = n;
+    sy_test_pto_damping(m, 2e5);
+}
+
+void sy_test_pto_damping(sy_model *m, double b)
+{
+    m->pto_damping = b;
+    for (size_t i = 0; i < m->n_devices; i++)
+        m->devices[i].pto_damping = b;
+}
