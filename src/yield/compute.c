@@ -444,14 +444,15 @@ static int strategy_per_sea_state(ctx *c, sy_yield_result *r)
 {
     const syi_yield_seas *s = c->seas;
     size_t nd = c->nd, ng = s->n_groups;
-    double *iso = malloc(nd * sizeof *iso), *bopt = malloc(ng * sizeof *bopt);
+    double *iso = malloc(nd * sizeof *iso), *bopt = malloc(2 * ng * sizeof *bopt), *xhi_g = bopt + ng;
     double *gv = c->gp + ng * nd, *gi = gv + ng * nd; /* unit-Hs results at each group's optimum */
     int rc = iso && bopt ? SY_OK : sy_error_set(c->err, SY_ENOMEM, "per-sea-state tuning");
     scalar_fn power = {group_power_fn, c}, stroke = {group_stroke_fn, c};
     for (size_t g = 0; rc == SY_OK && g < ng; g++) {
         double bref = reference_damping(c, g), x;
         c->group = g;
-        rc = maximise(&power, log(bref / B_RANGE), log(bref * B_RANGE), &x, c->err);
+        xhi_g[g] = log(bref * B_RANGE);
+        rc = maximise(&power, log(bref / B_RANGE), xhi_g[g], &x, c->err);
         bopt[g] = exp(x);
         group_modal(c, &c->full, g, bopt[g]);
         memcpy(c->gp + g * nd, c->pdev, nd * sizeof *c->pdev);
@@ -460,7 +461,7 @@ static int strategy_per_sea_state(ctx *c, sy_yield_result *r)
     }
     for (size_t k = 0; rc == SY_OK && k < s->n; k++) {
         size_t g = s->group[k];
-        double b = bopt[g], xhi = log(reference_damping(c, g) * B_RANGE), vmax = 0;
+        double b = bopt[g], xhi = xhi_g[g], vmax = 0;
         int limited = 0;
         c->group = g;
         for (size_t q = 0; q < nd; q++)
