@@ -2,6 +2,7 @@
  * holding about 10 poles with <= 64 array evaluations on the contour plus polishing,
  * <= 10 s on 2 cores). INVENTED layout: the demo's 3 x 3 floats. */
 #include "bench_clock.h"
+#include "float_model.h"
 #include "swellyield/swellyield.h"
 
 #include <math.h>
@@ -12,21 +13,15 @@ int main(void)
 {
     sy_init();
     double omega[2] = {0.3, 2.5}, head = 0;
+    /* The demo's 3 x 3 grid, 40 m apart (INVENTED). */
+    double gx[9], gy[9];
+    for (int i = 0; i < 9; i++)
+        gx[i] = 40.0 * (i % 3), gy[i] = 40.0 * (i / 3);
     sy_model m;
     sy_model_device dev[9];
-    memset(&m, 0, sizeof m);
-    m.depth = 50, m.rho = 1025, m.g = 9.81, m.shape = SY_SHAPE_FLOAT, m.radius = 5, m.draft = 4;
-    m.mass_displaced = 1, m.modes = SY_MODES_HEAVE, m.has_pto = 1, m.efficiency = 1, m.pto_damping = 2e5;
-    m.tolerance = 1e-4, m.max_bodies = 100, m.omega = omega, m.n_omega = 2, m.headings = &head, m.n_headings = 1;
-    m.has_resonance = 1, m.q_threshold = 5, m.pto_mode = 3;
+    sy_test_float_model(&m, dev, 9, gx, gy, omega, 2, &head, 1);
+    m.tolerance = 1e-4, m.has_resonance = 1, m.q_threshold = 5;
     strcpy(m.path, "bench");
-    for (int i = 0; i < 9; i++) {
-        memset(&dev[i], 0, sizeof dev[i]);
-        snprintf(dev[i].name, sizeof dev[i].name, "B%d", i);
-        dev[i].x = 40.0 * (i % 3), dev[i].y = 40.0 * (i / 3), dev[i].radius = 5, dev[i].draft = 4;
-        dev[i].pto_damping = 2e5;
-    }
-    m.devices = dev, m.n_devices = 9;
     struct { double lo, hi, depth; unsigned kinds; const char *what; } cases[] = {
         {0.8, 1.6, 0.15, SY_POLES_MOTION, "motion, PTO as set"},
         {0.8, 1.6, 0.15, SY_POLES_NO_PTO, "motion, no PTO (light damping: more poles near the axis)"},
