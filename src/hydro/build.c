@@ -43,6 +43,18 @@ typedef struct job {
     int n_threads;
 } job;
 
+/* Frequencies src[s0 .. s0+count) into dst[d0 ..): the per-frequency fields of two
+ * databases of the same layout (the cache blocks and the whole sweep). */
+static void copy_block(sy_hydro_db *dst, size_t d0, const sy_hydro_db *src, size_t s0, size_t count)
+{
+    size_t nd = src->n_dof, nh = src->n_headings;
+    memcpy(dst->added_mass + d0 * nd * nd, src->added_mass + s0 * nd * nd, count * nd * nd * sizeof(double));
+    memcpy(dst->damping + d0 * nd * nd, src->damping + s0 * nd * nd, count * nd * nd * sizeof(double));
+    memcpy(dst->excitation + d0 * nh * nd, src->excitation + s0 * nh * nd, count * nh * nd * sizeof(double complex));
+    memcpy(dst->convergence + d0, src->convergence + s0, count * sizeof(double));
+    memcpy(dst->omega + d0, src->omega + s0, count * sizeof(double));
+}
+
 static int db_from_results(sy_hydro_db *db, size_t first, sy_array_hydro **res, size_t count)
 {
     size_t nd = db->n_dof, nh = db->n_headings;
@@ -166,11 +178,7 @@ static int run_job(const job *j, sy_hydro_db **out, size_t *computed, size_t *ca
                 for (size_t i = 0; have && i < count; i++)
                     have = blk->omega[i] == m->omega[first + i];
                 if (have) {
-                    memcpy(db->added_mass + first * nd * nd, blk->added_mass, count * nd * nd * sizeof(double));
-                    memcpy(db->damping + first * nd * nd, blk->damping, count * nd * nd * sizeof(double));
-                    memcpy(db->excitation + first * m->n_headings * nd, blk->excitation,
-                           count * m->n_headings * nd * sizeof(double complex));
-                    memcpy(db->convergence + first, blk->convergence, count * sizeof(double));
+                    copy_block(db, first, blk, 0, count);
                     (*cached)++;
                 }
                 sy_hydro_db_free(blk);
@@ -186,7 +194,6 @@ static int run_job(const job *j, sy_hydro_db **out, size_t *computed, size_t *ca
                 /* The block as a small database of its own (same layout, same checks). */
                 rc = sy_hydro_db_alloc(&blk, count, m->n_headings, j->n, nd, err);
                 if (rc == SY_OK) {
-                    memcpy(blk->omega, m->omega + first, count * sizeof(double));
                     memcpy(blk->headings, db->headings, m->n_headings * sizeof(double));
                     memcpy(blk->dof_body, db->dof_body, nd * sizeof(int));
                     memcpy(blk->dof_mode, db->dof_mode, nd * sizeof(int));
@@ -195,10 +202,7 @@ static int run_job(const job *j, sy_hydro_db **out, size_t *computed, size_t *ca
                     memcpy(blk->body_radius, db->body_radius, j->n * sizeof(double));
                     memcpy(blk->body_draft, db->body_draft, j->n * sizeof(double));
                     memcpy(blk->body_name, db->body_name, j->n * sizeof *db->body_name);
-                    memcpy(blk->added_mass, db->added_mass + first * nd * nd, count * nd * nd * sizeof(double));
-                    memcpy(blk->damping, db->damping + first * nd * nd, count * nd * nd * sizeof(double));
-                    memcpy(blk->excitation, db->excitation + first * m->n_headings * nd,
-                           count * m->n_headings * nd * sizeof(double complex));
+                    copy_block(blk, 0, db, first, count);
                     blk->depth = db->depth, blk->rho = db->rho, blk->g = db->g, blk->tolerance = db->tolerance;
                     memcpy(blk->truncation, db->truncation, sizeof db->truncation);
                     snprintf(blk->cache_key, sizeof blk->cache_key, "%016llx", key);
