@@ -48,6 +48,11 @@ int main(int argc, char **argv)
         printf("bench_poles: 3 x 3 floats, %s, region %g..%g x -%g rad/s: %zu array evaluations, %.1f s, "
                "%.1f evaluations per pole\n", cases[c].what, cases[c].lo, cases[c].hi, cases[c].depth,
                set->evaluations, t, found ? (double)set->evaluations / (double)found : 0.0);
+        printf("    evaluations: %zu contour + %zu phase tracking + %zu polish (%.2f polish per pole)\n",
+               set->evaluations_contour, set->evaluations_tracking,
+               set->evaluations - set->evaluations_contour - set->evaluations_tracking,
+               found ? (double)(set->evaluations - set->evaluations_contour - set->evaluations_tracking) / (double)found
+                     : 0.0);
         for (int k = 0; k < 3; k++)
             if (set->count[k] != SY_POLES_NOT_SEARCHED)
                 printf("    %-14s count %d, found %zu\n", sy_pole_kind_name((sy_pole_kind)k), set->count[k], set->found[k]);

@@ -68,6 +68,8 @@ typedef struct sy_pole_set {
     int count[3];                /* argument-principle count per kind (SY_POLES_NOT_SEARCHED: not searched) */
     size_t found[3];             /* poles found per kind */
     size_t evaluations;          /* complex-frequency array evaluations (contour + polish) */
+    size_t evaluations_contour;  /* of which quadrature points of the contour(s) */
+    size_t evaluations_tracking; /* of which extra points of the phase tracking */
     double complex centre;       /* the ellipse used: centre and semi-axes, rad/s */
     double ax, ay;
 } sy_pole_set;

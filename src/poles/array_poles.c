@@ -377,6 +377,7 @@ int sy_poles_find_progress(sy_pole_set **out, const sy_model *m, unsigned kinds,
             rc = syi_nep_contour_multi(nep, n_prob, &e, &st, el, room, r, err);
             if (rc != SY_OK)
                 break;
+            set->evaluations_contour += N_POINTS, set->evaluations_tracking += r[0].refined;
             size_t earlier = set->n;
             for (size_t k = 0; k < n_prob; k++) {
                 size_t rep = add_poles(set, earlier, el[k], r[k].n_found, kind_of[k], nd);

@@ -83,6 +83,8 @@ typedef struct syi_nep_eig {
     double complex *v;      /* n: eigenvector, largest entry 1 (caller storage; unused for n = 0) */
     double residual;        /* |v| / |T^-1 v| relative to the scale of T (n = 0: |polish step| / |omega|) */
     int converged;          /* 1 if the polish met polish_tol */
+    int multiplicity;       /* determinant-only problems: 2 for a double zero (polished on
+                               f^(1/2)), else 1; listed as two entries of eig */
 } syi_nep_eig;
 
 typedef struct syi_nep_result {
