@@ -26,14 +26,18 @@ int main(int argc, char **argv)
     m.tolerance = 1e-4, m.has_resonance = 1, m.q_threshold = 5;
     strcpy(m.path, "bench");
     struct { double lo, hi, depth; unsigned kinds; const char *what; } cases[] = {
+        {1.15, 1.30, 0.05, SY_POLES_NO_PTO | SY_POLES_SCATTERING,
+         "no PTO (lightly damped heave modes) and fixed-array scattering"},
         {1.15, 1.45, 0.05, SY_POLES_NO_PTO | SY_POLES_SCATTERING,
          "no PTO (lightly damped heave modes) and fixed-array scattering"},
     };
+    size_t n_cases = sizeof cases / sizeof cases[0];
     if (argc == 5) { /* bench_poles RE_MIN RE_MAX IM_DEPTH KINDS: another region */
+        n_cases = 1;
         cases[0].lo = atof(argv[1]), cases[0].hi = atof(argv[2]), cases[0].depth = atof(argv[3]);
         cases[0].kinds = (unsigned)atoi(argv[4]);
     }
-    for (size_t c = 0; c < sizeof cases / sizeof cases[0]; c++) {
+    for (size_t c = 0; c < n_cases; c++) {
         m.res_re_min = cases[c].lo, m.res_re_max = cases[c].hi, m.res_im_depth = cases[c].depth;
         sy_pole_set *set = NULL;
         sy_error err = SY_ERROR_INIT;

@@ -13,6 +13,10 @@
 #define POLISH_MAX_ITER 16
 #define DEDUP_REL 1e-7      /* two polished eigenvalues closer than this (relative) are one */
 #define DEDUP_LOOSE 1e-4   /* ... when one of them did not converge (noise of T reached) */
+/* A polish that stalls with the residual |T v| / (|T| |v|) above this is not near an
+ * eigenvalue (a stall at T's noise leaves ~1e-8): the estimate is dropped. */
+#define NOT_AN_EIGENVALUE 1e-4
+#define CLUSTER_REL 1e-4   /* contour estimates this close: a multiple eigenvalue, split by quadrature error */
 #define INSIDE_MARGIN 1e-9
 #define NOTHING_INSIDE 1e-9 /* moments this small relative to |T^-1 V| r: no eigenvalue inside */
 /* Phase tracking: a wrapped phase step above this between neighbouring points may hide a
@@ -133,7 +137,8 @@ static int track(pass *ps, double t0, const double complex *a, double t1, const 
  * multiplicity m > 1 on f^(1/m) (a double zero, e.g. a two-dimensional representation of a
  * symmetric layout, converges linearly on f and stalls at the square root of its noise).
  * Stop when the predicted error of the new iterate (step x the observed contraction of the
- * steps; for the first Newton step, step x RESIDUE_TRUST) is below polish_tol: the
+ * steps; for the first Newton step, step x RESIDUE_TRUST) is below polish_tol (a Newton
+ * start that diverges falls back to the secant from the best point so far): the
  * eigenvector and residual come from the last evaluation (within one step of the pole),
  * so a pole whose contour estimate is already accurate costs one evaluation. */
 #define RESIDUE_TRUST 1e-2 /* the contour's residue is taken to be accurate to 1 %% */
@@ -144,7 +149,7 @@ static int polish(const syi_nep *p, const syi_nep_settings *st, double complex w
 {
     size_t n = p->n;
     double m = 1.0;
-    int reverted = 0;
+    int reverted = 0, restarted = 0;
     const double complex *rhs = b != NULL ? b : v;
     double complex w = w0, wprev = 0, gprev = 0, wbest = w0, wnext = w0;
     double last_step = INFINITY, gbest = INFINITY, res = 0;
@@ -180,7 +185,7 @@ static int polish(const syi_nep *p, const syi_nep_settings *st, double complex w
             gbest = size, wbest = w;
         double complex step;
         double predicted;
-        if (!have_prev && n > 0 && b != NULL) {
+        if (!have_prev && n > 0 && b != NULL && !restarted) {
             step = g, predicted = cabs(step) * RESIDUE_TRUST;
         } else if (!have_prev) { /* second starting point */
             wprev = w, gprev = g, have_prev = 1;
@@ -206,8 +211,12 @@ static int polish(const syi_nep *p, const syi_nep_settings *st, double complex w
          * varies with omega) has been reached: stop there, not polished. A double root
          * guessed wrongly (the zero is simple) stalls too: start again from the best point
          * with m = 1. */
-        if (it >= 3 && cabs(step) > 0.5 * last_step) {
+        if ((it >= 3 && cabs(step) > 0.5 * last_step) || (b != NULL && !restarted && it == 1 && cabs(step) > last_step)) {
             wnext = wbest;
+            if (b != NULL && !restarted) { /* the residue's Newton step diverged: secant from the best point */
+                restarted = 1, have_prev = 0, last_step = INFINITY, w = wbest;
+                continue;
+            }
             if (m == 1.0 || reverted)
                 break;
             m = 1.0, reverted = 1, have_prev = 0, last_step = INFINITY, w = wbest;
@@ -262,9 +271,19 @@ static int add_candidate(const syi_nep *p, const syi_ellipse *c, double rho, con
     if (res->n_found >= max_eig)
         return sy_error_set(err, SY_ENOCONV, "contour: more than %zu eigenvalues", max_eig);
     syi_nep_eig *o = &eig[res->n_found];
+    /* A multiple eigenvalue of a symmetric layout comes out of the moments as a cluster
+     * (split by the quadrature error): start at the member already polished, where the
+     * Newton step of this one (its residue isolated by bb) is at once small. */
+    for (size_t q = 0; bb != NULL && q < res->n_found; q++)
+        if (eig[q].converged && cabs(eig[q].omega - w0) <= CLUSTER_REL * cabs(w0)) {
+            w0 = eig[q].omega;
+            break;
+        }
     int rc = polish(p, st, w0, vv, bb, xx, o, &res->evaluations, err);
     if (rc != SY_OK || !syi_ellipse_inside(c, o->omega, INSIDE_MARGIN))
         return rc;
+    if (p->n > 0 && !o->converged && o->residual > NOT_AN_EIGENVALUE)
+        return SY_OK; /* the polish found no eigenvalue near this estimate: spurious */
     /* The same eigenvalue twice: within DEDUP_REL, or within DEDUP_LOOSE when one of the two
      * polishes stalled (T's noise reached before the secant converged). */
     for (size_t q = 0; q < res->n_found; q++) {
