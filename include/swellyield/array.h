@@ -90,7 +90,8 @@ SY_API size_t sy_array_plan_n_unknowns(const sy_array_plan *plan);
 SY_API size_t sy_array_plan_n_headings(const sy_array_plan *plan);
 SY_API void sy_array_plan_dof(const sy_array_plan *plan, size_t d, size_t *body, int *mode);
 /* Interaction unknown u (0..n_unknowns-1): its body, depth mode q (0 propagating) and
- * angular order n (-M..M). */
+ * angular order n (-M_q..M_q, M_q <= M the orders kept for that body and mode; see
+ * sy_array_plan_partial_waves). u out of range: body (size_t)-1, q 0, n 0. */
 SY_API void sy_array_plan_unknown(const sy_array_plan *plan, size_t u, size_t *body, size_t *depth_mode,
                                   long *order);
 /* Number of (body pair, evanescent mode) couplings dropped below the tolerance. */

@@ -351,6 +351,19 @@ int main(void)
                               sy_array_plan_partial_waves(red.plan, 0, 1) >= sy_array_plan_partial_waves(red.plan, 0, 4),
                           "body 0: 17 propagating partial waves, fewer evanescent (%zu, ..., %zu)",
                           sy_array_plan_partial_waves(red.plan, 0, 1), sy_array_plan_partial_waves(red.plan, 0, 4));
+            /* the public unknown map follows the per-mode layout */
+            size_t bad_map = 0;
+            for (size_t i = 0; i < 5; i++)
+                for (size_t q = 0; q < red.plan->nq[i]; q++) {
+                    const long Mq = (long)syi_array_order(red.plan, i, q);
+                    for (long n = -Mq; n <= Mq; n++) {
+                        size_t bi, qi;
+                        long ni;
+                        sy_array_plan_unknown(red.plan, syi_array_unknown(red.plan, i, q, n), &bi, &qi, &ni);
+                        bad_map += bi != i || qi != q || ni != n;
+                    }
+                }
+            sy_check_true(bad_map == 0, "sy_array_plan_unknown inverts the per-mode index map (%zu wrong)", bad_map);
             for (int c = 0; c < 3; c++) {
                 rc = sy_array_solve(red.plan, om[c], red.work, red.res, &err);
                 if (rc == SY_OK)
