@@ -158,8 +158,11 @@ int sy_cmd_run(int argc, char **argv)
                      ps->count[SY_POLE_SCATTERING]);
         }
     }
+    sy_progress yprog = {0};
     if (rc == SY_OK)
-        rc = sy_yield_compute_banded(&yr, m, cl, hs->array, hs->iso_of_device, edges, nb, &err);
+        rc = sy_yield_compute_progress(&yr, m, cl, hs->array, hs->iso_of_device, edges, nb, sy_cli_yield_progress,
+                                       &yprog, &err);
+    sy_progress_end(&yprog);
     char path[SY_OUTPUTS_PATH_MAX + 64];
     if (rc == SY_OK && (rc = sy_outputs_path(&st, "hydro.nc", path, sizeof path, &err)) == SY_OK)
         rc = sy_hydro_db_write(hs->array, path, &err);
