@@ -1,15 +1,18 @@
-/* Benchmark of the resonance search (issue: all poles of a 3 x 3 array in a region
+/* Benchmark of the resonance search (issue #6: all poles of a 3 x 3 array in a region
  * holding about 10 poles with <= 64 array evaluations on the contour plus polishing,
- * <= 10 s on 2 cores). INVENTED layout: the demo's 3 x 3 floats. */
+ * <= 10 s on 2 cores). INVENTED layout: the demo's 3 x 3 floats. Prints count, found,
+ * evaluations and time per family (docs/benchmarks.md); `bench_poles RE_MIN RE_MAX
+ * IM_DEPTH KINDS` searches another region (KINDS: SY_POLES_* bits). */
 #include "bench_clock.h"
 #include "float_model.h"
 #include "swellyield/swellyield.h"
 
 #include <math.h>
 #include <stdio.h>
+#include <stdlib.h>
 #include <string.h>
 
-int main(void)
+int main(int argc, char **argv)
 {
     sy_init();
     double omega[2] = {0.3, 2.5}, head = 0;
@@ -23,9 +26,13 @@ int main(void)
     m.tolerance = 1e-4, m.has_resonance = 1, m.q_threshold = 5;
     strcpy(m.path, "bench");
     struct { double lo, hi, depth; unsigned kinds; const char *what; } cases[] = {
-        {0.8, 1.6, 0.15, SY_POLES_MOTION, "motion, PTO as set"},
-        {0.8, 1.6, 0.15, SY_POLES_NO_PTO, "motion, no PTO (light damping: more poles near the axis)"},
+        {1.15, 1.45, 0.05, SY_POLES_NO_PTO | SY_POLES_SCATTERING,
+         "no PTO (lightly damped heave modes) and fixed-array scattering"},
     };
+    if (argc == 5) { /* bench_poles RE_MIN RE_MAX IM_DEPTH KINDS: another region */
+        cases[0].lo = atof(argv[1]), cases[0].hi = atof(argv[2]), cases[0].depth = atof(argv[3]);
+        cases[0].kinds = (unsigned)atoi(argv[4]);
+    }
     for (size_t c = 0; c < sizeof cases / sizeof cases[0]; c++) {
         m.res_re_min = cases[c].lo, m.res_re_max = cases[c].hi, m.res_im_depth = cases[c].depth;
         sy_pole_set *set = NULL;
@@ -37,11 +44,17 @@ int main(void)
             printf("bench_poles: %s: %s\n", cases[c].what, err.msg);
             continue;
         }
-        size_t found = set->found[SY_POLE_MOTION] + set->found[SY_POLE_MOTION_NO_PTO];
-        printf("bench_poles: 3 x 3 floats, %s, region %g..%g x -%g rad/s: %zu poles, %zu array evaluations "
-               "(64 on the contour), %.1f s, %.1f evaluations per pole\n",
-               cases[c].what, cases[c].lo, cases[c].hi, cases[c].depth, found, set->evaluations, t,
-               found ? (double)set->evaluations / (double)found : 0.0);
+        size_t found = set->found[0] + set->found[1] + set->found[2];
+        printf("bench_poles: 3 x 3 floats, %s, region %g..%g x -%g rad/s: %zu array evaluations, %.1f s, "
+               "%.1f evaluations per pole\n", cases[c].what, cases[c].lo, cases[c].hi, cases[c].depth,
+               set->evaluations, t, found ? (double)set->evaluations / (double)found : 0.0);
+        for (int k = 0; k < 3; k++)
+            if (set->count[k] != SY_POLES_NOT_SEARCHED)
+                printf("    %-14s count %d, found %zu\n", sy_pole_kind_name((sy_pole_kind)k), set->count[k], set->found[k]);
+        for (size_t i = 0; i < set->n; i++)
+            printf("    %-14s %.8f %+.8fi  Q %.2f  residual %.2g%s\n", sy_pole_kind_name(set->poles[i].kind),
+                   set->poles[i].omega_r, -set->poles[i].gamma, set->poles[i].q, set->poles[i].residual,
+                   set->poles[i].converged ? "" : " (not polished)");
         sy_pole_set_free(set);
     }
     return 0;

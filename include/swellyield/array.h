@@ -84,6 +84,10 @@ SY_API size_t sy_array_plan_n_dof(const sy_array_plan *plan);
 SY_API size_t sy_array_plan_n_unknowns(const sy_array_plan *plan);
 SY_API size_t sy_array_plan_n_headings(const sy_array_plan *plan);
 SY_API void sy_array_plan_dof(const sy_array_plan *plan, size_t d, size_t *body, int *mode);
+/* Interaction unknown u (0..n_unknowns-1): its body, depth mode q (0 propagating) and
+ * angular order n (-M..M). */
+SY_API void sy_array_plan_unknown(const sy_array_plan *plan, size_t u, size_t *body, size_t *depth_mode,
+                                  long *order);
 /* Number of (body pair, evanescent mode) couplings dropped below the tolerance. */
 SY_API size_t sy_array_plan_dropped(const sy_array_plan *plan);
 /* 64-bit FNV-1a hash of geometry, settings and headings (a cache key). */

@@ -15,6 +15,7 @@
  *   spectrum.<ext>        the spectrum of the most frequent sea state (bin with most hours)
  *                         and the array's absorbed power density in it at the fixed PTO
  *                         damping (mechanical, before efficiency and rating);
+ *   (time_response.<ext>  drawn by the caller with sy_plot_response, below)
  *   poles.<ext>           (only when poles is non-NULL) the poles in the complex omega
  *                         plane, marker size by quality factor Q, and the search region;
  *   report.md             one page: headline numbers, the four strategies side by side,
@@ -40,6 +41,7 @@
 #include "swellyield/hydrodb.h"
 #include "swellyield/model.h"
 #include "swellyield/poles.h"
+#include "swellyield/response.h"
 #include "swellyield/yield.h"
 
 #ifdef __cplusplus
@@ -63,6 +65,15 @@ SY_API int sy_plot_run(const char *dir, const sy_model *model, const sy_climate_
                        const sy_hydro_db *array_db, const sy_yield_result *result,
                        const sy_pole_set *poles, const double *bands, size_t n_bands,
                        const char *format, sy_error *err);
+
+/* Picture `name`.<format> in dir of a time response (response.h): the released or pushed
+ * dof and the other dof that moves most, each as the direct Fourier inversion (solid) and
+ * the pole sum (dashed); the subtitle gives the largest difference over the second half of
+ * the record relative to the peak. format as above. SY_EINVAL (NULL, bad format, empty
+ * response), SY_EINPUT (non-finite samples, dofs not of the model), SY_EIO, SY_ENOMEM.
+ * Not thread-safe (PLplot). */
+SY_API int sy_plot_response(const char *dir, const char *name, const sy_model *model,
+                            const sy_response *response, const char *format, sy_error *err);
 
 #ifdef __cplusplus
 }

@@ -7,19 +7,23 @@
  *               complex omega (the equation of motion of conventions.md); with
  *               SY_POLES_NO_PTO the same without the PTO;
  *   SCATTERING  zeros of det(I - D T), the multiple-scattering operator of the array held
- *               fixed (near-trapped waves between bodies). Counted by the argument
- *               principle (count[SY_POLE_SCATTERING]); their locations are not yet
- *               computed (TODO(#6)), so found[] stays 0 for this family.
- * Method: contour integrals (Beyn 2012) on an ellipse covering the model's [resonance]
- * region, sized by the argument-principle count, each pole polished by a secant
- * iteration to max(1e-12, tolerance / 100) relative (the float body's truncation, chosen
- * per frequency from [solve] tolerance, makes T analytic only to about that level; use
- * tolerance 1e-8 or tighter for poles to 1e-10), see src/poles/poles_impl.h. For the motion family the
- * count is the winding number of det Z, i.e. zeros minus poles of det Z inside (Z_rad can
- * have poles where the bodies' own scattering is resonant, at close spacing): the count then
- * falls short of the zeros, and as it also caps the number of eigenvalues extracted
- * (the singular values of the moments are polluted by the float's per-frequency
- * truncation), poles can be missed at such spacings (open, issue #6). */
+ *               fixed (near-trapped waves between bodies).
+ * Method (src/poles/poles_impl.h): one ellipse covering the model's [resonance] region
+ * (the rectangle scaled by sqrt 2); all families asked for share its 64 points, each point
+ * one array solve. Motion: contour integrals (Beyn 2012) on Z^-1, the number of
+ * eigenvalues extracted set by the singular values of the moments (floor: the body
+ * solver's accuracy) and checked against the argument-principle bounds
+ * winding(det Z) <= zeros of Z <= winding(det Z) + winding(det(I - D T)) (Z is meromorphic:
+ * its poles are the coupled scattering resonances). Scattering: Delves-Lyness power sums of
+ * the zeros of det(I - D T) from the same contour's log-determinants (free with each array
+ * solve). Every pole is polished by a secant iteration to max(1e-12, tolerance / 100)
+ * relative (the float body's truncation, chosen per frequency from [solve] tolerance, makes
+ * T analytic only to about that level; use tolerance 1e-8 or tighter for poles to 1e-10).
+ * The phase of the determinants is tracked continuously, with extra points where it turns
+ * fast (det(I - D T) turns quickly well below the real axis: there the scattering count
+ * needs many points, see docs/benchmarks.md). Where a family's count, rank and found
+ * disagree, the region is halved along Re omega (at most twice: 1, 2, 4 ellipses).
+ * Found poles are those inside the searched ellipse(s), each once. */
 #ifndef SWELLYIELD_POLES_H
 #define SWELLYIELD_POLES_H
 
@@ -48,7 +52,12 @@ typedef struct sy_pole {
     double residual;         /* |Z v| / (|Z| |v|) estimate at the polished pole */
     int converged;           /* polish met 1e-10 */
     const double complex *mode; /* MOTION: complex amplitude of every dof (n_dof), largest 1;
-                                   SCATTERING: NULL */
+                                   SCATTERING (models with one dof per body, else NULL):
+                                   per body, the amplitude of the waves it scatters in the
+                                   resonance (2-norm of its outgoing partial-wave
+                                   coefficients in the null vector of I - D T, each
+                                   measured at the body's radius), with the phase of its
+                                   axisymmetric propagating coefficient; largest 1 */
 } sy_pole;
 
 typedef struct sy_pole_set {
@@ -67,6 +76,11 @@ typedef struct sy_pole_set {
  * truncation are the model's. SY_EINPUT if the model has no [resonance] region,
  * SY_ENOCONV if the contour capacity was too small (message says what to change). */
 SY_API int sy_poles_find(sy_pole_set **out, const sy_model *model, unsigned kinds, sy_error *err);
+/* The same with a progress callback (may be NULL) called after each contour point with
+ * (ctx, points done, points on the contour); threads: one search per model at a time. */
+SY_API int sy_poles_find_progress(sy_pole_set **out, const sy_model *model, unsigned kinds,
+                                  void (*progress)(void *ctx, size_t done, size_t total), void *progress_ctx,
+                                  sy_error *err);
 SY_API void sy_pole_set_free(sy_pole_set *set);
 
 #ifdef __cplusplus

@@ -100,14 +100,14 @@ SY_API void sy_response_free(sy_response *r);
  * Written atomically (a failed write leaves no file). SY_EIO with the path on failure. */
 SY_API int sy_response_write_csv(const sy_response *r, const sy_model *model, const char *path, sy_error *err);
 
-/* For the `poles` verb's -o PREFIX: PREFIX_decay.csv (body 0 released from 1 m heave) and
- * PREFIX_pulse.csv (body 0 pushed by a half-sine heave force of rho g pi a^2 x 1 m, the
- * static force of a 1 m heave, lasting a quarter of the slowest motion pole's period),
- * both over 15 such periods, 40 samples per period, default grids. SY_EINPUT if `poles`
- * has no motion pole with Re > 0; statuses of sy_poles_response and the writer. Each file
- * is written atomically. */
-SY_API int sy_poles_response_files(const sy_model *model, const sy_pole_set *poles, const char *prefix,
-                                   sy_error *err);
+/* The standard experiments of the `poles -t` and `run --resonances` outputs: body 0
+ * released from 1 m heave (DECAY), or pushed by a half-sine heave force of rho g pi a^2 x
+ * 1 m (the static force of a 1 m heave) lasting a quarter of the slowest motion pole's
+ * period (PULSE); both over as many periods of that pole as the slowest-decaying pole
+ * needs to fall to e^-7 (at least 3, at most 15), 40 samples per period, default grids.
+ * SY_EINPUT if `poles` has no motion pole with Re > 0. */
+SY_API int sy_response_settings_standard(sy_response_settings *s, const sy_model *model, const sy_pole_set *poles,
+                                         sy_response_kind kind, sy_error *err);
 
 #ifdef __cplusplus
 }

@@ -37,6 +37,11 @@ void sy_cli_yield_progress(void *ctx, size_t done, size_t total);
 /* --jobs value 1..1024, or 0 if the text is not one. */
 int sy_cli_parse_jobs(const char *text);
 
+/* dir/stem.csv and dir/stem.png of the standard time response `kind`
+ * (sy_response_settings_standard) over the motion poles of ps (response_out.c). */
+int sy_cli_time_response(const sy_model *m, const sy_pole_set *ps, sy_response_kind kind, const char *dir,
+                         const char *stem, sy_error *err);
+
 int sy_cmd_version(int argc, char **argv);
 int sy_cmd_check(int argc, char **argv);
 int sy_cmd_run(int argc, char **argv);

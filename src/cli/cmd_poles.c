@@ -15,8 +15,8 @@ static const char *help =
     "[resonance] region: motion resonances with the PTO as set and without it, and the\n"
     "scattering resonances of the array held fixed. Prints them; -o writes them as CSV with\n"
     "each motion resonance's mode shape (amplitude and phase of every body's dof).\n"
-    "-t PREFIX writes PREFIX_decay.csv (free decay after releasing the first body from 1 m)\n"
-    "and PREFIX_pulse.csv (response to a short heave force pulse): the sum over the motion\n"
+    "-t PREFIX writes PREFIX_decay.csv/.png (free decay after releasing the first body from\n"
+    "1 m) and PREFIX_pulse.csv/.png (response to a short heave force pulse): the sum over the motion\n"
     "poles beside a direct Fourier inversion of the real-frequency response. A pole sum\n"
     "leaves out the non-pole (branch) part, which matters most at early times.\n";
 
@@ -47,8 +47,22 @@ int sy_cmd_poles(int argc, char **argv)
         rc = sy_poles_find(&set, m, SY_POLES_MOTION | SY_POLES_NO_PTO | SY_POLES_SCATTERING, &err);
     if (rc == SY_OK && out != NULL)
         rc = sy_outputs_write_poles(out, m, set, &err);
-    if (rc == SY_OK && tprefix != NULL)
-        rc = sy_poles_response_files(m, set, tprefix, &err);
+    if (rc == SY_OK && tprefix != NULL) { /* PREFIX = [folder/]stem */
+        char dir[SY_OUTPUTS_PATH_MAX], stem[SY_OUTPUTS_PATH_MAX + 16];
+        const char *slash = strrchr(tprefix, '/');
+        size_t nd = slash == NULL ? 0 : (size_t)(slash - tprefix);
+        if (nd + 1 >= sizeof dir || strlen(tprefix) + 8 >= sizeof dir) {
+            rc = sy_error_set(&err, SY_EINVAL, "-t %.40s...: prefix too long", tprefix);
+        } else {
+            snprintf(dir, sizeof dir, "%.*s", (int)(slash == NULL ? 1 : nd == 0 ? 1 : nd),
+                     slash == NULL ? "." : tprefix);
+            const char *base = slash == NULL ? tprefix : slash + 1;
+            for (int k = 0; k < 2 && rc == SY_OK; k++) {
+                snprintf(stem, sizeof stem, "%s%s", base, k == 0 ? "_decay" : "_pulse");
+                rc = sy_cli_time_response(m, set, k == 0 ? SY_RESPONSE_DECAY : SY_RESPONSE_PULSE, dir, stem, &err);
+            }
+        }
+    }
     if (rc != SY_OK) {
         int code = sy_cli_fail("poles", rc, &err);
         sy_model_free(m);

@@ -172,6 +172,11 @@ int sy_cmd_run(int argc, char **argv)
         rc = sy_outputs_write_poles(path, m, ps, &err);
     if (rc == SY_OK) /* pictures and report.md; the flagged bands shaded on the q-factor picture */
         rc = sy_plot_run(st.stage, m, cl, hs->array, yr, ps, edges, nb, "png", &err);
+    if (rc == SY_OK && ps != NULL && ps->found[SY_POLE_MOTION] > 0) { /* what the poles say in time */
+        sy_error terr = SY_ERROR_INIT; /* optional like the search itself: a failure is reported, not fatal */
+        if (sy_cli_time_response(m, ps, SY_RESPONSE_DECAY, st.stage, "time_response", &terr) != SY_OK)
+            fprintf(stderr, "swellyield: run: time response left out: %s\n", terr.msg);
+    }
     if (rc == SY_OK)
         rc = sy_outputs_commit(&st, &err);
     if (rc != SY_OK) {

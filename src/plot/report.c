@@ -77,7 +77,9 @@ static int fill(FILE *f, const void *vctx)
     fprintf(f, "- [Spectrum](spectrum.%s): the most frequent sea state and the array's absorbed power "
                "in it (fixed damping).\n", ext);
     if (c->with_poles)
-        fprintf(f, "- [Resonances](poles.%s): poles in the complex frequency plane.\n", ext);
+        fprintf(f, "- [Resonances](poles.%s): poles in the complex frequency plane; "
+                   "[free decay](time_response.png) of the first device by the pole sum against direct "
+                   "inversion (written when motion poles were found).\n", ext);
     if (strcmp(ext, "png") == 0)
         fprintf(f, "\n![Array layout](layout.png)\n\n![Power matrix](power_matrix.png)\n");
     if (c->n_bands > 0) {

@@ -1,5 +1,8 @@
 /* The array's resonances (poles.h): the motion and scattering eigenproblems handed to the
- * contour solver (contour.c) through one solve callback each. */
+ * contour solver (contour.c) through one solve callback each. All families searched in
+ * one call share the contour points, and every contour point costs one array solve: the
+ * motion problems assemble Z(omega) from it, and the LU of I - D T it leaves in the work
+ * gives log det(I - D T) (the scattering determinant, and the pole function of Z) for free. */
 #include <complex.h>
 #include "poles_impl.h"
 #include "swellyield/array.h"
@@ -7,6 +10,7 @@
 #include "swellyield/hydro.h"
 #include "swellyield/poles.h"
 
+#include <float.h>
 #include <lapacke.h>
 #include <math.h>
 #include <stdlib.h>
@@ -15,10 +19,13 @@
 #define N_POINTS 64        /* trapezoid points on the ellipse: geometric convergence */
 #define POLES_BODY_TOL 1e-9
 #define SAME_POLE 1e-6     /* poles closer than this (relative) from two sub-regions are one */
-#define MAX_SPLIT 2        /* a region whose contour fails is halved, at most twice */
-#define RANK_TOL 1e-10     /* singular values of the moment matrix below this (relative) are noise */
+#define MAX_SPLIT 2        /* a region whose contour fails or disagrees is halved, at most twice */
+#define RANK_TOL 1e-12     /* singular values of the moment matrix below this (relative) are dropped */
 #define POLISH_TOL 1e-12   /* secant stop when the hydrodynamics are tight enough for it */
+#define MAX_MOMENTS 4      /* K <= 4: capacity 4 n_dof - 1 motion poles per contour */
 #define MAX_POLES 256
+#define NULL_ITER 2        /* inverse-iteration steps for a scattering null vector */
+#define SEED 11
 
 const char *sy_pole_kind_name(sy_pole_kind k)
 {
@@ -26,10 +33,31 @@ const char *sy_pole_kind_name(sy_pole_kind k)
     return (unsigned)k < 3 ? names[k] : "?";
 }
 
-typedef struct motion_ctx {
+/* One array evaluation per distinct omega, shared by every problem of the search. */
+typedef struct shared {
     const sy_array_plan *plan;
     sy_array_work *work;
     sy_array_hydro *res;
+    double complex omega;
+    int state;                /* 0 nothing, 1 I - D T factorised, 2 full solve at omega */
+    size_t evaluations;
+} shared;
+
+static int need(shared *s, double complex w, int state, sy_error *err)
+{
+    if (s->state >= state && s->omega == w)
+        return SY_OK;
+    double complex ld;
+    int rc = state == 2 ? sy_array_solve(s->plan, w, s->work, s->res, err)
+                        : sy_array_interaction_logdet(s->plan, w, s->work, &ld, err);
+    s->evaluations++;
+    s->state = rc == SY_OK ? state : 0;
+    s->omega = w;
+    return rc;
+}
+
+typedef struct motion_ctx {
+    shared *sh;
     size_t nd;
     const double *mass, *stiff, *visc;
     double *bpto, *kpto;      /* [nd] diagonal PTO damping and stiffness (0 off the PTO dofs) */
@@ -48,21 +76,30 @@ static double complex lu_logdet(const double complex *a, const lapack_int *ipiv,
     return (swaps & 1) ? s + I * M_PI : s;
 }
 
+/* Z(omega) with det(I - D T) as its pole function: zeros of Z inside a contour =
+ * winding(det Z) + winding(det(I - D T)) (Z = Schur complement of the coupled
+ * body-and-wave system, whose determinant is det Z det(I - D T)). */
 static int motion_solve(void *p, double complex w, size_t nrhs, const double complex *rhs, double complex *x,
-                        double complex *logdet, sy_error *err)
+                        double complex *logdet, double complex *logpole, sy_error *err)
 {
     motion_ctx *c = p;
     size_t n = c->nd;
-    int rc = sy_array_solve(c->plan, w, c->work, c->res, err);
+    int rc = need(c->sh, w, 2, err);
     if (rc != SY_OK)
         return rc;
+    const double complex *zr = c->sh->res->impedance;
     for (size_t i = 0; i < n; i++)
         for (size_t j = 0; j < n; j++) {
-            double complex z = c->stiff[i * n + j] - w * w * c->mass[i * n + j] - I * w * c->res->impedance[i * n + j];
+            double complex z = c->stiff[i * n + j] - w * w * c->mass[i * n + j] - I * w * zr[i * n + j];
             if (i == j)
                 z += c->kpto[i] - I * w * (c->bpto[i] + c->visc[i]);
             c->t[j * n + i] = z;
         }
+    if (logpole != NULL) {
+        rc = sy_array_factored_logdet(c->sh->plan, c->sh->work, logpole, err);
+        if (rc != SY_OK)
+            return rc;
+    }
     lapack_int info = LAPACKE_zgetrf(LAPACK_COL_MAJOR, (lapack_int)n, (lapack_int)n, c->t, (lapack_int)n, c->ipiv);
     if (info > 0)
         return sy_error_set(err, SY_ESINGULAR, "array impedance singular at omega = %g%+gi", creal(w), cimag(w));
@@ -77,6 +114,20 @@ static int motion_solve(void *p, double complex w, size_t nrhs, const double com
             return sy_error_set(err, SY_EINVAL, "zgetrs %d", (int)info);
     }
     return SY_OK;
+}
+
+/* det(I - D T) of the fixed array: a determinant-only problem. */
+static int scatter_solve(void *p, double complex w, size_t nrhs, const double complex *rhs, double complex *x,
+                         double complex *logdet, double complex *logpole, sy_error *err)
+{
+    shared *s = p;
+    (void)nrhs, (void)rhs, (void)x;
+    if (logpole != NULL)
+        *logpole = 0;
+    int rc = need(s, w, 1, err);
+    if (rc == SY_OK && logdet != NULL)
+        rc = sy_array_factored_logdet(s->plan, s->work, logdet, err);
+    return rc;
 }
 
 void sy_pole_set_free(sy_pole_set *s)
@@ -103,37 +154,114 @@ static syi_ellipse region_ellipse(double re_min, double re_max, double im_depth)
     return e;
 }
 
-static int add_poles(sy_pole_set *set, const syi_nep_eig *eig, const syi_nep_result *res, sy_pole_kind kind,
-                     const sy_model *m, size_t nd)
+/* Body-wise amplitude of a scattering resonance: the null vector of I - D T (scaled basis:
+ * each outgoing partial wave measured at its body's radius) by inverse iteration at the
+ * polished pole; body b's amplitude is the 2-norm of its coefficients, with the phase of
+ * its axisymmetric propagating coefficient (q = 0, n = 0) when that carries at least
+ * AXI_SHARE of the body's norm (else the phase of its largest coefficient); largest 1. */
+#define AXI_SHARE 1e-3
+static int scattering_mode(shared *s, double complex w, double complex *vec, double complex *mode, size_t n_bodies,
+                           sy_error *err)
 {
-    for (size_t i = 0; i < res->n_found; i++) {
+    size_t nu = sy_array_plan_n_unknowns(s->plan);
+    int rc = need(s, w, 1, err);
+    if (rc == SY_ESINGULAR) { /* exactly singular in double: step off by a rounding unit */
+        sy_error_clear(err);
+        rc = need(s, w * (1 + 4 * DBL_EPSILON), 1, err);
+    }
+    if (rc != SY_OK)
+        return rc;
+    unsigned long long seed = SEED;
+    for (size_t u = 0; u < nu; u++) {
+        seed ^= seed >> 12, seed ^= seed << 25, seed ^= seed >> 27;
+        vec[u] = (double)((seed * 2685821657736338717ULL) >> 11) / 9007199254740992.0 - 0.5;
+    }
+    for (int it = 0; it < NULL_ITER && rc == SY_OK; it++) {
+        rc = sy_array_interaction_solve(s->plan, s->work, vec, vec, err);
+        double nv = 0;
+        for (size_t u = 0; u < nu; u++)
+            nv += creal(vec[u] * conj(vec[u]));
+        nv = sqrt(nv);
+        for (size_t u = 0; rc == SY_OK && u < nu; u++)
+            vec[u] /= nv;
+    }
+    if (rc != SY_OK)
+        return rc;
+    double *norm = calloc(n_bodies, sizeof *norm), *big = calloc(n_bodies, sizeof *big);
+    double complex *axi = calloc(n_bodies, sizeof *axi), *top = calloc(n_bodies, sizeof *top);
+    if (!norm || !big || !axi || !top) {
+        free(norm), free(big), free(axi), free(top);
+        return sy_error_set(err, SY_ENOMEM, "scattering mode of %zu bodies", n_bodies);
+    }
+    for (size_t u = 0; u < nu; u++) {
+        size_t b, q;
+        long ord;
+        sy_array_plan_unknown(s->plan, u, &b, &q, &ord);
+        if (b >= n_bodies)
+            continue;
+        double a = cabs(vec[u]);
+        norm[b] += a * a;
+        if (a > big[b])
+            big[b] = a, top[b] = vec[u];
+        if (q == 0 && ord == 0)
+            axi[b] = vec[u];
+    }
+    double nmax = 0;
+    size_t bmax = 0;
+    for (size_t b = 0; b < n_bodies; b++) {
+        norm[b] = sqrt(norm[b]);
+        double complex ref = cabs(axi[b]) >= AXI_SHARE * norm[b] ? axi[b] : top[b];
+        mode[b] = ref != 0 ? norm[b] * ref / cabs(ref) : 0;
+        if (norm[b] > nmax)
+            nmax = norm[b], bmax = b;
+    }
+    double complex scale = mode[bmax];
+    for (size_t b = 0; b < n_bodies; b++)
+        mode[b] = scale != 0 ? mode[b] / scale : 0;
+    free(norm), free(big), free(axi), free(top);
+    return SY_OK;
+}
+
+/* Poles of one contour into the set, each once (the ellipses of a split region overlap);
+ * returns how many of them an earlier contour had found. */
+static size_t add_poles(sy_pole_set *set, size_t earlier, const syi_nep_eig *eig, size_t n_found, sy_pole_kind kind,
+                        size_t nd)
+{
+    size_t repeated = 0;
+    for (size_t i = 0; i < n_found; i++) {
         double complex w = eig[i].omega;
-        /* Keep only the region itself (the ellipse is larger), each pole once (the
-         * ellipses of a split region overlap). */
-        if (creal(w) < m->res_re_min || creal(w) > m->res_re_max || cimag(w) < -m->res_im_depth || cimag(w) > 0)
-            continue;
-        int seen = 0;
-        for (size_t q = 0; q < set->n && !seen; q++)
+        int seen = 0; /* found by an earlier contour (poles[0..earlier-1]); one contour's
+                         repeated values are a multiple eigenvalue with independent modes */
+        for (size_t q = 0; q < earlier && !seen; q++)
             seen = set->poles[q].kind == kind && cabs(set->poles[q].omega - w) <= SAME_POLE * cabs(w);
-        if (seen)
+        if (seen) {
+            repeated++;
             continue;
+        }
+        if (set->n >= MAX_POLES)
+            break;
         sy_pole *p = &set->poles[set->n];
         p->omega = w, p->omega_r = creal(w), p->gamma = -cimag(w);
         p->q = p->gamma > 0 ? p->omega_r / (2 * p->gamma) : INFINITY;
         p->kind = kind;
         p->residual = eig[i].residual;
         p->converged = eig[i].converged;
-        if (kind != SY_POLE_SCATTERING) {
+        if (kind != SY_POLE_SCATTERING)
             memcpy(set->modes + set->n * nd, eig[i].v, nd * sizeof *set->modes);
-            p->mode = NULL; /* pointers fixed up after the last realloc-free fill */
-        }
+        p->mode = NULL; /* pointers fixed up after the last fill */
         set->n++;
         set->found[kind]++;
     }
-    return SY_OK;
+    return repeated;
 }
 
 int sy_poles_find(sy_pole_set **out, const sy_model *m, unsigned kinds, sy_error *err)
+{
+    return sy_poles_find_progress(out, m, kinds, NULL, NULL, err);
+}
+
+int sy_poles_find_progress(sy_pole_set **out, const sy_model *m, unsigned kinds,
+                           void (*progress)(void *ctx, size_t done, size_t total), void *progress_ctx, sy_error *err)
 {
     int rc = sy_model_require(m, SY_NEED_RESONANCE, err);
     if (rc != SY_OK)
@@ -144,12 +272,10 @@ int sy_poles_find(sy_pole_set **out, const sy_model *m, unsigned kinds, sy_error
     sy_hydro_db *db = NULL;
     sy_dyn_plan *dyn = NULL;
     sy_pole_set *set = calloc(1, sizeof *set);
-    syi_nep_eig *eig = calloc(MAX_POLES, sizeof *eig);
-    double complex *vbuf = NULL;
-    motion_ctx mc = {0};
-    if (set == NULL || eig == NULL) {
-        free(set);
-        free(eig);
+    double complex *vbuf = NULL, *nullv = NULL;
+    motion_ctx mc[2] = {{0}, {0}};
+    shared sh = {0};
+    if (set == NULL) {
         return sy_error_set(err, SY_ENOMEM, "pole search");
     }
     set->count[0] = set->count[1] = set->count[2] = SY_POLES_NOT_SEARCHED;
@@ -165,21 +291,29 @@ int sy_poles_find(sy_pole_set **out, const sy_model *m, unsigned kinds, sy_error
     if (rc == SY_OK)
         rc = sy_array_hydro_alloc(&res, plan, err);
     size_t nd = rc == SY_OK ? sy_array_plan_n_dof(plan) : 0, nu = rc == SY_OK ? sy_array_plan_n_unknowns(plan) : 0;
-    size_t vn = nd > nu ? nd : nu;
     if (rc == SY_OK) {
         set->n_dof = nd;
         set->poles = calloc(MAX_POLES, sizeof *set->poles);
         set->modes = calloc(MAX_POLES * (nd ? nd : 1), sizeof *set->modes);
-        vbuf = malloc(MAX_POLES * vn * sizeof *vbuf);
-        mc.bpto = calloc(nd, sizeof *mc.bpto);
-        mc.kpto = calloc(nd, sizeof *mc.kpto);
-        mc.t = malloc(nd * nd * sizeof *mc.t);
-        mc.ipiv = malloc(nd * sizeof *mc.ipiv);
-        if (!set->poles || !set->modes || !vbuf || !mc.bpto || !mc.kpto || !mc.t || !mc.ipiv)
+        vbuf = malloc(3 * MAX_POLES * (nd + 1) * sizeof *vbuf);
+        nullv = malloc((nu + 1) * sizeof *nullv);
+        if (!set->poles || !set->modes || !vbuf || !nullv)
             rc = sy_error_set(err, SY_ENOMEM, "pole search for %zu dofs", nd);
     }
-    for (size_t i = 0; rc == SY_OK && i < MAX_POLES; i++)
-        eig[i].v = vbuf + i * vn;
+    for (int k = 0; rc == SY_OK && k < 2; k++) {
+        mc[k].bpto = calloc(nd + 1, sizeof *mc[k].bpto);
+        mc[k].kpto = calloc(nd + 1, sizeof *mc[k].kpto);
+        mc[k].t = malloc((nd * nd + 1) * sizeof *mc[k].t);
+        mc[k].ipiv = malloc((nd + 1) * sizeof *mc[k].ipiv);
+        if (!mc[k].bpto || !mc[k].kpto || !mc[k].t || !mc[k].ipiv)
+            rc = sy_error_set(err, SY_ENOMEM, "pole search for %zu dofs", nd);
+    }
+    /* Three eigenvalue lists (one per family), MAX_POLES each. */
+    syi_nep_eig *eigs = rc == SY_OK ? calloc(3 * MAX_POLES, sizeof *eigs) : NULL;
+    if (rc == SY_OK && eigs == NULL)
+        rc = sy_error_set(err, SY_ENOMEM, "pole search");
+    for (size_t i = 0; rc == SY_OK && i < 3 * MAX_POLES; i++)
+        eigs[i].v = vbuf + i * (nd + 1);
     /* Mass and stiffness from the dynamics module: a one-frequency database carries the dof map. */
     if (rc == SY_OK && (kinds & (SY_POLES_MOTION | SY_POLES_NO_PTO)) && m->shape == SY_SHAPE_FLOAT) {
         rc = sy_hydro_db_alloc(&db, 1, 1, m->n_devices, nd, err);
@@ -191,114 +325,119 @@ int sy_poles_find(sy_pole_set **out, const sy_model *m, unsigned kinds, sy_error
         }
         if (rc == SY_OK)
             rc = sy_dyn_plan_create(&dyn, m, db, m->pto_mode, err);
-        if (rc == SY_OK)
-            sy_dyn_plan_matrices(dyn, &mc.mass, &mc.stiff, &mc.visc);
+    }
+    sh.plan = plan, sh.work = work, sh.res = res;
+    /* The problems of this search: motion with the PTO, without it, scattering. */
+    syi_nep nep[3];
+    sy_pole_kind kind_of[3];
+    size_t n_prob = 0;
+    double scale = 0;
+    for (int k = 0; rc == SY_OK && dyn != NULL && k < 2; k++) {
+        if (!(kinds & (k == 0 ? SY_POLES_MOTION : SY_POLES_NO_PTO)))
+            continue;
+        motion_ctx *c = &mc[k];
+        c->sh = &sh, c->nd = nd;
+        sy_dyn_plan_matrices(dyn, &c->mass, &c->stiff, &c->visc);
+        for (size_t q = 0; k == 0 && q < sy_dyn_n_devices(dyn); q++) {
+            size_t d = sy_dyn_pto_dof(dyn, q);
+            const sy_model_device *dev = &m->devices[sy_dyn_device_body(dyn, q)];
+            c->bpto[d] = dev->pto_damping, c->kpto[d] = dev->pto_stiffness;
+        }
+        /* Scale of Z for relative residuals: hydrostatic stiffness, or mass omega^2. */
+        double wc = 0.5 * (m->res_re_min + m->res_re_max);
+        for (size_t i = 0; i < nd; i++)
+            scale = fmax(scale, fmax(fabs(c->stiff[i * nd + i]), c->mass[i * nd + i] * wc * wc));
+        nep[n_prob] = (syi_nep){nd, motion_solve, c, scale};
+        kind_of[n_prob++] = k == 0 ? SY_POLE_MOTION : SY_POLE_MOTION_NO_PTO;
+    }
+    if (rc == SY_OK && (kinds & SY_POLES_SCATTERING)) {
+        nep[n_prob] = (syi_nep){0, scatter_solve, &sh, 1.0};
+        kind_of[n_prob++] = SY_POLE_SCATTERING;
     }
     syi_ellipse ell = region_ellipse(m->res_re_min, m->res_re_max, m->res_im_depth);
     set->centre = ell.centre, set->ax = ell.ax, set->ay = ell.ay;
-    mc.plan = plan, mc.work = work, mc.res = res, mc.nd = nd;
-    for (int pass = 0; rc == SY_OK && pass < 2 && dyn != NULL; pass++) {
-        sy_pole_kind kind = pass == 0 ? SY_POLE_MOTION : SY_POLE_MOTION_NO_PTO;
-        if (!(kinds & (pass == 0 ? SY_POLES_MOTION : SY_POLES_NO_PTO)))
-            continue;
-        memset(mc.bpto, 0, nd * sizeof *mc.bpto);
-        memset(mc.kpto, 0, nd * sizeof *mc.kpto);
-        for (size_t k = 0; pass == 0 && k < sy_dyn_n_devices(dyn); k++) {
-            size_t d = sy_dyn_pto_dof(dyn, k);
-            const sy_model_device *dev = &m->devices[sy_dyn_device_body(dyn, k)];
-            mc.bpto[d] = dev->pto_damping, mc.kpto[d] = dev->pto_stiffness;
-        }
-        /* Scale of Z for relative residuals: hydrostatic stiffness, or mass omega^2. */
-        double scale = 0;
-        for (size_t i = 0; i < nd; i++)
-            scale = fmax(scale, fmax(fabs(mc.stiff[i * nd + i]), mc.mass[i * nd + i] * cabs(ell.centre * ell.centre)));
-        syi_nep nep = {nd, motion_solve, &mc, scale};
-        /* The polish can only resolve the pole as well as T is analytic: the float body's
-         * truncation (chosen per frequency from the tolerance) bounds it. */
-        syi_nep_settings st = {N_POINTS, nd, 4, RANK_TOL, fmax(POLISH_TOL, 1e-2 * mt.tolerance), 11};
-        /* The whole region first; where the contour fails (capacity reached, e.g. the
-         * count is spoiled by poles of Z inside), halve it along Re omega and retry, at
-         * most MAX_SPLIT times: 1, 2, 4 ellipses. */
-        for (int level = 0; level <= MAX_SPLIT; level++) {
-            size_t parts = (size_t)1 << level, n_before = set->n, fk = set->found[kind];
-            int count = 0;
-            double w = (m->res_re_max - m->res_re_min) / (double)parts;
-            for (size_t q = 0; q < parts; q++) {
-                syi_ellipse e = region_ellipse(m->res_re_min + w * (double)q, m->res_re_min + w * (double)(q + 1),
-                                               m->res_im_depth);
-                syi_nep_result r;
-                rc = syi_nep_contour(&nep, &e, &st, eig, MAX_POLES - set->n, &r, err);
-                set->evaluations += r.evaluations;
-                if (rc != SY_OK)
-                    break;
-                count += r.count;
-                add_poles(set, eig, &r, kind, m, nd);
-            }
-            if (rc == SY_OK) {
-                set->count[kind] = count; /* sum over the sub-contours (overlaps may double-count) */
+    /* The polish can only resolve the pole as well as T is analytic: the float body's
+     * truncation (chosen per frequency from the tolerance) bounds it. */
+    syi_nep_settings st = {N_POINTS, nd, MAX_MOMENTS, RANK_TOL, fmax(POLISH_TOL, 1e-2 * mt.tolerance), SEED,
+                           mt.tolerance, progress, progress_ctx};
+    /* The whole region first; where a contour fails (capacity) or its rank, count and found
+     * disagree, halve the region along Re omega and retry, at most MAX_SPLIT times: 1, 2, 4
+     * ellipses. Counts of overlapping ellipses are combined by subtracting the poles found
+     * in more than one of them. */
+    for (int level = 0; rc == SY_OK && n_prob > 0 && level <= MAX_SPLIT; level++) {
+        size_t parts = (size_t)1 << level, n_before = set->n;
+        int count[3] = {0, 0, 0}, consistent = 1;
+        double w = (m->res_re_max - m->res_re_min) / (double)parts;
+        for (size_t q = 0; q < parts && rc == SY_OK; q++) {
+            syi_ellipse e = region_ellipse(m->res_re_min + w * (double)q, m->res_re_min + w * (double)(q + 1),
+                                           m->res_im_depth);
+            syi_nep_result r[3];
+            syi_nep_eig *const el[3] = {eigs, eigs + MAX_POLES, eigs + 2 * MAX_POLES};
+            size_t room[3] = {MAX_POLES, MAX_POLES, MAX_POLES};
+            rc = syi_nep_contour_multi(nep, n_prob, &e, &st, el, room, r, err);
+            if (rc != SY_OK)
                 break;
+            size_t earlier = set->n;
+            for (size_t k = 0; k < n_prob; k++) {
+                size_t rep = add_poles(set, earlier, el[k], r[k].n_found, kind_of[k], nd);
+                count[kind_of[k]] += r[k].count - (int)rep;
+                /* Motion: found within the argument-principle bounds (a zero of det(I - D T)
+                 * whose mode does not couple to the bodies' dofs, e.g. by symmetry, is not a
+                 * pole of Z and leaves found below the upper bound); scattering: equal. */
+                int nf = (int)r[k].n_found;
+                consistent &= kind_of[k] == SY_POLE_SCATTERING ? nf == r[k].count
+                                                               : nf >= r[k].count_low && nf <= r[k].count;
             }
-            if (rc != SY_ENOCONV || level == MAX_SPLIT)
-                break;
-            set->n = n_before, set->found[kind] = fk; /* retry the kind with smaller contours */
-            sy_error_clear(err);
         }
+        if (rc == SY_OK && (consistent || level == MAX_SPLIT)) {
+            for (size_t k = 0; k < n_prob; k++)
+                set->count[kind_of[k]] = count[kind_of[k]];
+            break;
+        }
+        if (rc != SY_OK && (rc != SY_ENOCONV || level == MAX_SPLIT))
+            break;
+        /* retry every family with smaller contours */
+        set->n = n_before;
+        set->found[0] = set->found[1] = set->found[2] = 0;
+        rc = SY_OK;
+        sy_error_clear(err);
     }
-    if (rc == SY_OK && (kinds & SY_POLES_SCATTERING)) {
-        /* The scattering operator is solved in a basis scaled by |Hhat(k a)|, which is not
-         * analytic in omega, so Beyn's moments do not apply to its solves; its determinant
-         * is scale-free and analytic, so the argument principle counts its zeros.
-         * TODO(#6): locate them (Delves-Lyness moments of d log det, Newton polish). */
-        double phase = 0, prev = 0, first = 0;
-        for (size_t j = 0; rc == SY_OK && j < N_POINTS; j++) {
-            double t = 2 * M_PI * (double)j / N_POINTS;
-            double complex z = ell.centre + ell.ax * cos(t) + I * ell.ay * sin(t), ld;
-            rc = sy_array_interaction_logdet(plan, z, work, &ld, err);
-            set->evaluations++;
-            double ph = cimag(ld), d = ph - prev;
-            if (j == 0)
-                first = ph;
-            else
-                phase += d - 2 * M_PI * round(d / (2 * M_PI));
-            prev = ph;
-        }
-        if (rc == SY_OK) {
-            double d = first - prev;
-            phase += d - 2 * M_PI * round(d / (2 * M_PI));
-            set->count[SY_POLE_SCATTERING] = (int)lround(phase / (2 * M_PI));
-        }
-    }
+    /* Scattering resonances: body-wise mode shapes from the null vectors. */
+    for (size_t i = 0; rc == SY_OK && i < set->n; i++)
+        if (set->poles[i].kind == SY_POLE_SCATTERING && nd == m->n_devices)
+            rc = scattering_mode(&sh, set->poles[i].omega, nullv, set->modes + i * nd, m->n_devices, err);
+    set->evaluations = sh.evaluations;
+    int mode_rows = nd == m->n_devices; /* scattering modes are per body: stored when one dof per body */
     if (rc == SY_OK) {
-        /* Sort with the mode storage: sort indices through a copy. */
+        /* Sort with the mode storage. */
         sy_pole *sorted = malloc(set->n * sizeof *sorted + 1);
         double complex *modes = malloc(set->n * (nd ? nd : 1) * sizeof *modes + 1);
         if (sorted == NULL || modes == NULL) {
             rc = sy_error_set(err, SY_ENOMEM, "pole list");
         } else {
             for (size_t i = 0; i < set->n; i++)
-                set->poles[i].mode = set->poles[i].kind != SY_POLE_SCATTERING ? set->modes + i * nd : NULL;
+                set->poles[i].mode = set->modes + i * nd; /* original slot, to recover the index */
             memcpy(sorted, set->poles, set->n * sizeof *sorted);
             qsort(sorted, set->n, sizeof *sorted, by_frequency);
-            for (size_t i = 0; i < set->n; i++) {
-                if (sorted[i].mode != NULL) {
-                    memcpy(modes + i * nd, sorted[i].mode, nd * sizeof *modes);
-                    sorted[i].mode = NULL;
-                }
-            }
-            memcpy(set->poles, sorted, set->n * sizeof *sorted);
             for (size_t i = 0; i < set->n; i++)
-                set->poles[i].mode = set->poles[i].kind != SY_POLE_SCATTERING ? set->modes + i * nd : NULL;
-            memcpy(set->modes, modes, set->n * (nd ? nd : 1) * sizeof *modes);
+                memcpy(modes + i * nd, sorted[i].mode, nd * sizeof *modes);
+            memcpy(set->poles, sorted, set->n * sizeof *sorted);
+            memcpy(set->modes, modes, set->n * nd * sizeof *modes);
+            for (size_t i = 0; i < set->n; i++)
+                set->poles[i].mode = set->poles[i].kind != SY_POLE_SCATTERING || mode_rows ? set->modes + i * nd : NULL;
         }
         free(sorted);
         free(modes);
     }
-    free(mc.bpto);
-    free(mc.kpto);
-    free(mc.t);
-    free(mc.ipiv);
+    for (int k = 0; k < 2; k++) {
+        free(mc[k].bpto);
+        free(mc[k].kpto);
+        free(mc[k].t);
+        free(mc[k].ipiv);
+    }
     free(vbuf);
-    free(eig);
+    free(nullv);
+    free(eigs);
     sy_dyn_plan_free(dyn);
     sy_hydro_db_free(db);
     sy_array_hydro_free(res);

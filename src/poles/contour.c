@@ -1,5 +1,7 @@
-/* Beyn's contour-integral method with higher moments, argument-principle count and
- * secant polishing (poles_impl.h). Matrices column-major (LAPACK_COL_MAJOR). */
+/* Contour-integral eigenvalue solver (poles_impl.h): Beyn's method with higher moments for
+ * matrix problems, Delves-Lyness power sums for determinant-only problems, both sized by
+ * the argument principle with continuous phase tracking, then a secant polish.
+ * Matrices column-major (LAPACK_COL_MAJOR). */
 #include <complex.h>
 #include "poles_impl.h"
 
@@ -9,14 +11,31 @@
 #include <string.h>
 
 #define POLISH_MAX_ITER 16
-#define DEDUP_REL 1e-7   /* two polished eigenvalues closer than this (relative) are one */
+#define DEDUP_REL 1e-7      /* two polished eigenvalues closer than this (relative) are one */
+#define DEDUP_LOOSE 1e-4   /* ... when one of them did not converge (noise of T reached) */
 #define INSIDE_MARGIN 1e-9
 #define NOTHING_INSIDE 1e-9 /* moments this small relative to |T^-1 V| r: no eigenvalue inside */
+/* Phase tracking: a wrapped phase step above this between neighbouring points may hide a
+ * whole turn; the interval is bisected (one zero subtends less than pi from a chord, so
+ * pi/3 leaves room for two close zeros). */
+#define MAX_PHASE_STEP (M_PI / 3)
+#define REFINE_DEPTH 6      /* at most 2^6 sub-intervals per quadrature interval */
+/* Moments below NOISE_FACTOR x (accuracy of T) x |T^-1 V| x sum |weights| are noise: the
+ * factor covers the growth of a relative error of T in T^-1 near the eigenvalues. */
+#define NOISE_FACTOR 1e3
+#define NEAR_EDGE 0.9       /* normalised radius beyond which a found eigenvalue is "near the contour" */
+#define MAX_DET_ZEROS 24    /* Delves-Lyness: more zeros than this: split the region */
+#define DEFLATE_ROUNDS 3
 
 int syi_ellipse_inside(const syi_ellipse *c, double complex w, double m)
 {
+    return syi_ellipse_radius(c, w) < 1.0 - m;
+}
+
+double syi_ellipse_radius(const syi_ellipse *c, double complex w)
+{
     double x = creal(w - c->centre) / c->ax, y = cimag(w - c->centre) / c->ay;
-    return x * x + y * y < (1.0 - m) * (1.0 - m);
+    return sqrt(x * x + y * y);
 }
 
 /* Deterministic complex probing entries in [-1, 1]^2 (xorshift64*). */
@@ -38,7 +57,73 @@ static double vnorm(const double complex *v, size_t n)
     return sqrt(s);
 }
 
-/* Secant on g(w) = 1 / (v^T T(w)^-1 v); v updated by inverse iteration at the end. */
+static double wrap(double d)
+{
+    return d - 2 * M_PI * round(d / (2 * M_PI));
+}
+
+static double complex point(const syi_ellipse *c, double t)
+{
+    return c->centre + c->ax * cos(t) + I * c->ay * sin(t);
+}
+
+/* Per-problem state of one contour pass. */
+typedef struct pstate {
+    const syi_nep *p;
+    size_t l, np;               /* columns, moments accumulated (2 K_max) */
+    double complex *V, *X, *A;  /* probing block, solution block, moments */
+    double complex *logf;       /* [N] unwrapped log det at the quadrature points */
+    double ph_det, ph_pole;     /* accumulated phase change along the contour */
+    double xmax;
+} pstate;
+
+typedef struct pass {
+    const syi_ellipse *c;
+    pstate *ps;
+    size_t n_prob, refined;
+    double rate[2 * SYI_NEP_MAX_PROBLEMS]; /* phase turned per unit t on the last interval */
+    sy_error *err;
+} pass;
+
+/* Phase increments of every problem's det and pole function from t0 to t1 (values a at t0,
+ * b at t1: [2 q] det, [2 q + 1] pole). The increment is taken relative to the trend of the
+ * previous interval (det(I - D T) turns steadily and fast below the real axis: a smooth
+ * turn of more than pi between points is followed without extra points); where the step
+ * departs from the trend by more than MAX_PHASE_STEP the interval is bisected. */
+static int track(pass *ps, double t0, const double complex *a, double t1, const double complex *b, int depth,
+                 double *inc)
+{
+    int big = 0;
+    double d[2 * SYI_NEP_MAX_PROBLEMS];
+    for (size_t k = 0; k < 2 * ps->n_prob; k++) {
+        double pred = ps->rate[k] * (t1 - t0);
+        double dev = wrap(cimag(b[k]) - cimag(a[k]) - pred);
+        d[k] = pred + dev;
+        big |= fabs(dev) > MAX_PHASE_STEP;
+    }
+    if (!big || depth >= REFINE_DEPTH) {
+        for (size_t k = 0; k < 2 * ps->n_prob; k++)
+            inc[k] += d[k];
+        return SY_OK;
+    }
+    double tm = 0.5 * (t0 + t1);
+    double complex z = point(ps->c, tm), m[2 * SYI_NEP_MAX_PROBLEMS];
+    for (size_t q = 0; q < ps->n_prob; q++) {
+        const syi_nep *p = ps->ps[q].p;
+        m[2 * q + 1] = 0;
+        int rc = p->solve(p->ctx, z, 0, NULL, NULL, &m[2 * q], &m[2 * q + 1], ps->err);
+        if (rc != SY_OK) {
+            sy_error_prefix(ps->err, "contour point omega = %g%+gi rad/s", creal(z), cimag(z));
+            return rc;
+        }
+    }
+    ps->refined++;
+    int rc = track(ps, t0, a, tm, m, depth + 1, inc);
+    return rc == SY_OK ? track(ps, tm, m, t1, b, depth + 1, inc) : rc;
+}
+
+/* Secant on g(w) = 1 / (v^T T(w)^-1 v); v updated by inverse iteration at the end. For a
+ * determinant-only problem the secant runs on f itself: f0 / f1 = exp(log f0 - log f1). */
 static int polish(const syi_nep *p, const syi_nep_settings *st, double complex w0, double complex *v,
                   double complex *x, syi_nep_eig *out, size_t *evals, sy_error *err)
 {
@@ -48,8 +133,8 @@ static int polish(const syi_nep *p, const syi_nep_settings *st, double complex w
     int rc = SY_OK, conv = 0;
     for (int it = 0; it < POLISH_MAX_ITER && !conv; it++) {
         for (int pass = (it == 0 ? 0 : 1); pass < 2; pass++) {
-            double complex at = pass == 0 ? wprev : w;
-            rc = p->solve(p->ctx, at, 1, v, x, NULL, err);
+            double complex at = pass == 0 ? wprev : w, ld = 0, gv;
+            rc = p->solve(p->ctx, at, n ? 1 : 0, v, x, n ? NULL : &ld, NULL, err);
             (*evals)++;
             if (rc == SY_ESINGULAR) { /* exactly at the eigenvalue */
                 w = at, conv = 1, rc = SY_OK;
@@ -57,24 +142,27 @@ static int polish(const syi_nep *p, const syi_nep_settings *st, double complex w
             }
             if (rc != SY_OK)
                 return rc;
-            double complex s = 0;
-            for (size_t i = 0; i < n; i++)
-                s += v[i] * x[i];
-            double complex gv = 1.0 / s;
+            if (n > 0) {
+                double complex s = 0;
+                for (size_t i = 0; i < n; i++)
+                    s += v[i] * x[i];
+                gv = 1.0 / s;
+            } else {
+                gv = ld; /* log f: the secant below uses ratios */
+            }
             if (pass == 0)
                 gprev = gv;
             else
                 g = gv;
-            if (cabs(gv) < gbest) /* |g| ~ distance to the eigenvalue: keep the closest point */
-                gbest = cabs(gv), wbest = at;
+            double size = n > 0 ? log(cabs(gv)) : creal(gv); /* log |g| or log |f| */
+            if (size < gbest) /* |g| ~ distance to the eigenvalue: keep the closest point */
+                gbest = size, wbest = at;
         }
         if (conv)
             break;
-        double complex step = g * (w - wprev) / (g - gprev);
+        double complex step = n > 0 ? g * (w - wprev) / (g - gprev) : (w - wprev) / (1.0 - cexp(gprev - g));
         if (!isfinite(creal(step)) || !isfinite(cimag(step)))
             break;
-        /* v stays fixed: g is then one analytic function with a simple zero at the
-         * eigenvalue, which the secant needs (v is refined once, at the end). */
         /* Past the first steps a secant on an analytic function shrinks its step
          * superlinearly; a step that stops shrinking means T's own noise (truncation that
          * varies with omega) has been reached: stop there, not polished. */
@@ -87,8 +175,14 @@ static int polish(const syi_nep *p, const syi_nep_settings *st, double complex w
         w -= step;
         conv = cabs(step) <= st->polish_tol * cabs(w);
     }
+    out->omega = w;
+    out->converged = conv;
+    if (n == 0) {
+        out->residual = isfinite(last_step) ? last_step / cabs(w) : 0.0;
+        return SY_OK;
+    }
     /* Final eigenvector and residual at w: x = T^-1 v, residual |v| / |x| / scale. */
-    rc = p->solve(p->ctx, w, 1, v, x, NULL, err);
+    rc = p->solve(p->ctx, w, 1, v, x, NULL, NULL, err);
     (*evals)++;
     double res = 0;
     if (rc == SY_OK) {
@@ -108,71 +202,82 @@ static int polish(const syi_nep *p, const syi_nep_settings *st, double complex w
     double complex vm = v[imax];
     for (size_t i = 0; i < n; i++)
         out->v[i] = v[i] / vm;
-    out->omega = w;
     out->residual = res;
-    out->converged = conv;
     return SY_OK;
 }
 
-int syi_nep_contour(const syi_nep *p, const syi_ellipse *c, const syi_nep_settings *st, syi_nep_eig *eig,
-                    size_t max_eig, syi_nep_result *res, sy_error *err)
+/* Are two eigenvectors independent (|cos| of their angle below SAME_VECTOR)? */
+#define SAME_VECTOR 0.9
+static int independent(const double complex *a, const double complex *b, size_t n)
 {
-    size_t n = p->n, l = st->n_columns, K = st->n_moments, N = st->n_points, np = 2 * K;
-    if (l == 0 || l > n || K == 0 || N < 8)
-        return sy_error_set(err, SY_EINVAL, "contour: columns %zu (1..%zu), moments %zu, points %zu (>= 8)", l, n, K, N);
+    double complex s = 0;
+    for (size_t i = 0; i < n; i++)
+        s += conj(a[i]) * b[i];
+    return cabs(s) < SAME_VECTOR * vnorm(a, n) * vnorm(b, n);
+}
+
+/* Polish candidate lambda (scaled variable) and keep it if inside and new. */
+static int add_candidate(const syi_nep *p, const syi_ellipse *c, double rho, const syi_nep_settings *st,
+                         double complex lam, double complex *vv, double complex *xx, syi_nep_eig *eig,
+                         size_t max_eig, syi_nep_result *res, sy_error *err)
+{
+    double complex w0 = c->centre + rho * lam;
+    if (!syi_ellipse_inside(c, w0, -0.05)) /* spurious (outside): skip; 5 % slack before polishing */
+        return SY_OK;
+    if (res->n_found >= max_eig)
+        return sy_error_set(err, SY_ENOCONV, "contour: more than %zu eigenvalues", max_eig);
+    syi_nep_eig *o = &eig[res->n_found];
+    int rc = polish(p, st, w0, vv, xx, o, &res->evaluations, err);
+    if (rc != SY_OK || !syi_ellipse_inside(c, o->omega, INSIDE_MARGIN))
+        return rc;
+    /* The same eigenvalue twice: within DEDUP_REL, or within DEDUP_LOOSE when one of the two
+     * polishes stalled (T's noise reached before the secant converged). */
+    for (size_t q = 0; q < res->n_found; q++) {
+        double d = cabs(eig[q].omega - o->omega) / cabs(o->omega);
+        if (d <= DEDUP_REL && p->n > 0 && independent(eig[q].v, o->v, p->n))
+            continue; /* a multiple (semisimple) eigenvalue: symmetric layouts have them */
+        if (d <= DEDUP_REL || (d <= DEDUP_LOOSE && !o->converged))
+            return SY_OK;
+        if (d <= DEDUP_LOOSE && !eig[q].converged) { /* replace the stalled one */
+            double complex *v = eig[q].v;
+            if (v != NULL && p->n > 0)
+                memcpy(v, o->v, p->n * sizeof *v);
+            eig[q].omega = o->omega, eig[q].residual = o->residual, eig[q].converged = o->converged;
+            return SY_OK;
+        }
+    }
+    if (syi_ellipse_radius(c, o->omega) > NEAR_EDGE)
+        res->near_edge = 1;
+    res->n_found++;
+    return SY_OK;
+}
+
+/* Beyn: block Hankel SVD, rank between the counts, small eigenproblem, polish. */
+static int beyn(pstate *s, const syi_ellipse *c, double rho, double wsum, const syi_nep_settings *st,
+                syi_nep_eig *eig, size_t max_eig, syi_nep_result *res, sy_error *err)
+{
+    const syi_nep *p = s->p;
+    size_t n = p->n, l = s->l;
+    int upper = res->count, lower = res->count_low < 0 ? 0 : res->count_low;
+    if (upper < lower)
+        upper = lower;
+    size_t K = ((size_t)upper + 1 + l - 1) / l;
+    if (K < 1)
+        K = 1;
+    if (2 * K > s->np)
+        return sy_error_set(err, SY_ENOCONV,
+                            "contour: argument-principle count %d exceeds the capacity %zu (columns x moments); "
+                            "split the region", upper, (s->np / 2) * l - 1);
     size_t kn = K * n, kl = K * l;
-    double complex *V = malloc(n * l * sizeof *V), *X = malloc(n * l * sizeof *X);
-    double complex *A = calloc(np * n * l, sizeof *A);           /* A_p, p = 0..2K-1, each n x l col-major */
     double complex *H0 = malloc(kn * kl * sizeof *H0), *H1 = malloc(kn * kl * sizeof *H1);
     double complex *U = malloc(kn * kl * sizeof *U), *Wt = malloc(kl * kl * sizeof *Wt);
     double *sv = malloc(kl * sizeof *sv), *superb = malloc(kl * sizeof *superb);
-    double complex *D = malloc(kl * kl * sizeof *D), *T1 = malloc(kn * kl * sizeof *T1);
-    double complex *lam = malloc(kl * sizeof *lam), *S = malloc(kl * kl * sizeof *S);
+    double complex *D = malloc(kl * kl * sizeof *D), *lam = malloc(kl * sizeof *lam), *S = malloc(kl * kl * sizeof *S);
     double complex *vv = malloc(n * sizeof *vv), *xx = malloc(n * sizeof *xx);
     int rc = SY_OK;
-    memset(res, 0, sizeof *res);
-    if (!V || !X || !A || !H0 || !H1 || !U || !Wt || !sv || !superb || !D || !T1 || !lam || !S || !vv || !xx) {
-        rc = sy_error_set(err, SY_ENOMEM, "contour integrals for n = %zu", n);
+    if (!H0 || !H1 || !U || !Wt || !sv || !superb || !D || !lam || !S || !vv || !xx) {
+        rc = sy_error_set(err, SY_ENOMEM, "contour moments for n = %zu", n);
         goto done;
-    }
-    unsigned long long seed = st->seed ? st->seed : 0x9E3779B97F4A7C15ULL;
-    for (size_t i = 0; i < n * l; i++)
-        V[i] = rnd(&seed);
-    /* Trapezoid rule: (1/2 pi i) oint f dz = (1/(i N)) sum f(z_j) z'(t_j). */
-    double phase = 0, prev = 0, first = 0, xmax = 0;
-    for (size_t j = 0; j < N && rc == SY_OK; j++) {
-        double t = 2 * M_PI * (double)j / (double)N;
-        double complex z = c->centre + c->ax * cos(t) + I * c->ay * sin(t);
-        double complex dz = -c->ax * sin(t) + I * c->ay * cos(t), ld;
-        rc = p->solve(p->ctx, z, l, V, X, &ld, err);
-        res->evaluations++;
-        if (rc != SY_OK) {
-            sy_error_prefix(err, "contour point omega = %g%+gi rad/s", creal(z), cimag(z));
-            break;
-        }
-        /* Unwrapped phase of det T for the winding number. */
-        double ph = cimag(ld);
-        if (j == 0) {
-            first = ph;
-        } else {
-            double d = ph - prev;
-            d -= 2 * M_PI * round(d / (2 * M_PI));
-            phase += d;
-        }
-        prev = ph;
-        xmax = fmax(xmax, vnorm(X, n * l));
-        double complex w = dz / (I * (double)N), zp = 1;
-        for (size_t q = 0; q < np; q++, zp *= z)
-            for (size_t i = 0; i < n * l; i++)
-                A[q * n * l + i] += zp * w * X[i];
-    }
-    if (rc != SY_OK)
-        goto done;
-    {
-        double d = first - prev; /* close the loop */
-        d -= 2 * M_PI * round(d / (2 * M_PI));
-        phase += d;
-        res->count = (int)lround(phase / (2 * M_PI));
     }
     /* Block Hankel matrices (column-major kn x kl): block (a, b) = A_{a+b} (H0), A_{a+b+1} (H1). */
     for (size_t a = 0; a < K; a++)
@@ -180,86 +285,73 @@ int syi_nep_contour(const syi_nep *p, const syi_ellipse *c, const syi_nep_settin
             for (size_t jj = 0; jj < l; jj++)
                 for (size_t i = 0; i < n; i++) {
                     size_t at = (b * l + jj) * kn + a * n + i;
-                    H0[at] = A[(a + b) * n * l + jj * n + i];
-                    H1[at] = A[(a + b + 1) * n * l + jj * n + i];
+                    H0[at] = s->A[(a + b) * n * l + jj * n + i];
+                    H1[at] = s->A[(a + b + 1) * n * l + jj * n + i];
                 }
-    memcpy(T1, H0, kn * kl * sizeof *T1);
-    lapack_int info = LAPACKE_zgesvd(LAPACK_COL_MAJOR, 'S', 'S', (lapack_int)kn, (lapack_int)kl, T1, (lapack_int)kn, sv,
-                                     U, (lapack_int)kn, Wt, (lapack_int)kl, superb);
-    if (info != 0) {
-        rc = sy_error_set(err, SY_ENOCONV, "contour: SVD failed (%d)", (int)info);
-        goto done;
+    {
+        double complex *T1 = malloc(kn * kl * sizeof *T1);
+        if (T1 == NULL) {
+            rc = sy_error_set(err, SY_ENOMEM, "contour SVD");
+            goto done;
+        }
+        memcpy(T1, H0, kn * kl * sizeof *T1);
+        lapack_int info = LAPACKE_zgesvd(LAPACK_COL_MAJOR, 'S', 'S', (lapack_int)kn, (lapack_int)kl, T1,
+                                         (lapack_int)kn, sv, U, (lapack_int)kn, Wt, (lapack_int)kl, superb);
+        free(T1);
+        if (info != 0) {
+            rc = sy_error_set(err, SY_ENOCONV, "contour: SVD failed (%d)", (int)info);
+            goto done;
+        }
     }
-    /* No eigenvalue inside: the moments are quadrature noise, far below the size
-     * |T^-1 V| r they have when a pole contributes a residue. */
-    size_t k = 0;
-    if (sv[0] > NOTHING_INSIDE * xmax * fmax(c->ax, c->ay))
-        while (k < kl && sv[k] > st->rank_tol * sv[0])
-            k++;
-    /* The argument principle is robust to small non-analytic noise in T (truncation that
-     * changes with omega), the singular values are not: where the count is positive and
-     * within capacity it decides the rank. */
-    if (res->count > 0 && (size_t)res->count < k)
-        k = (size_t)res->count;
+    /* Singular values above the noise of T (its evaluation accuracy carried through the
+     * quadrature) and above rank_tol relative. */
+    double floor_abs = NOISE_FACTOR * st->noise * s->xmax * wsum;
+    size_t ksv = 0;
+    if (sv[0] > NOTHING_INSIDE * s->xmax * wsum)
+        while (ksv < kl && sv[ksv] > st->rank_tol * sv[0] && sv[ksv] > floor_abs)
+            ksv++;
+    size_t k = ksv;
+    res->consistent = (int)ksv >= lower && (int)ksv <= upper;
+    if ((int)k < lower)
+        k = (size_t)lower; /* the argument principle guarantees at least this many */
+    if ((int)k > upper)
+        k = (size_t)upper;
+    res->rank = k;
     if (k == 0)
-        goto done; /* nothing inside */
-    if (k == kl) {
-        rc = sy_error_set(err, SY_ENOCONV,
-                          "contour: %zu eigenvalues may exceed the capacity %zu (columns x moments; "
-                          "argument-principle count %d); raise them or split the region",
-                          k, kl, res->count);
         goto done;
-    }
     /* D = U0^H H1 W0 Sigma0^-1 (k x k); W0 = Wt^H first k columns. */
     for (size_t a = 0; a < k; a++)
         for (size_t b = 0; b < k; b++) {
-            double complex s = 0;
+            double complex acc = 0;
             for (size_t r = 0; r < kn; r++) {
                 double complex hw = 0;
                 for (size_t q = 0; q < kl; q++)
                     hw += H1[q * kn + r] * conj(Wt[q * kl + b]);
-                s += conj(U[a * kn + r]) * hw;
+                acc += conj(U[a * kn + r]) * hw;
             }
-            D[b * k + a] = s / sv[b];
+            D[b * k + a] = acc / sv[b];
         }
-    info = LAPACKE_zgeev(LAPACK_COL_MAJOR, 'N', 'V', (lapack_int)k, D, (lapack_int)k, lam, NULL, 1, S, (lapack_int)k);
+    lapack_int info = LAPACKE_zgeev(LAPACK_COL_MAJOR, 'N', 'V', (lapack_int)k, D, (lapack_int)k, lam, NULL, 1, S,
+                                    (lapack_int)k);
     if (info != 0) {
         rc = sy_error_set(err, SY_ENOCONV, "contour: small eigenproblem failed (%d)", (int)info);
         goto done;
     }
     for (size_t e = 0; e < k && rc == SY_OK; e++) {
-        if (!syi_ellipse_inside(c, lam[e], -0.05)) /* spurious (outside): skip; 5 % slack before polishing */
-            continue;
         /* Eigenvector: first n rows of U0 s. */
         for (size_t i = 0; i < n; i++) {
-            double complex s = 0;
+            double complex acc = 0;
             for (size_t a = 0; a < k; a++)
-                s += U[a * kn + i] * S[e * k + a];
-            vv[i] = s;
+                acc += U[a * kn + i] * S[e * k + a];
+            vv[i] = acc;
         }
         double nv = vnorm(vv, n);
         for (size_t i = 0; i < n; i++)
             vv[i] /= nv;
-        if (res->n_found >= max_eig) {
-            rc = sy_error_set(err, SY_ENOCONV, "contour: more than %zu eigenvalues", max_eig);
-            break;
-        }
-        syi_nep_eig *o = &eig[res->n_found];
-        rc = polish(p, st, lam[e], vv, xx, o, &res->evaluations, err);
-        if (rc != SY_OK)
-            break;
-        if (!syi_ellipse_inside(c, o->omega, INSIDE_MARGIN))
-            continue;
-        size_t dup = 0;
-        for (size_t q = 0; q < res->n_found && !dup; q++)
-            dup = cabs(eig[q].omega - o->omega) <= DEDUP_REL * cabs(o->omega);
-        if (!dup)
-            res->n_found++;
+        rc = add_candidate(p, c, rho, st, lam[e], vv, xx, eig, max_eig, res, err);
     }
+    res->consistent = res->consistent && res->n_found == k;
 done:
-    free(V);
-    free(X);
-    free(A);
     free(H0);
     free(H1);
     free(U);
@@ -267,10 +359,204 @@ done:
     free(sv);
     free(superb);
     free(D);
-    free(T1);
     free(lam);
     free(S);
     free(vv);
     free(xx);
     return rc;
+}
+
+/* Delves-Lyness: power sums of the zeros from the unwrapped log f, Hankel pencil, polish,
+ * deflation of the zeros found when fewer than the count come out. */
+static int delves_lyness(pstate *s, const syi_ellipse *c, double rho, size_t N, const syi_nep_settings *st,
+                         syi_nep_eig *eig, size_t max_eig, syi_nep_result *res, sy_error *err)
+{
+    int C = res->count;
+    if (C <= 0)
+        return SY_OK;
+    if (C > MAX_DET_ZEROS)
+        return sy_error_set(err, SY_ENOCONV, "contour: %d zeros of the determinant exceed %d; split the region", C,
+                            MAX_DET_ZEROS);
+    size_t nc = (size_t)C, ns = 2 * nc + 1;
+    double complex *dl = malloc(N * sizeof *dl), *sp = calloc(ns, sizeof *sp);
+    double complex *H0 = malloc(nc * nc * sizeof *H0), *H1 = malloc(nc * nc * sizeof *H1);
+    double complex *al = malloc(nc * sizeof *al), *be = malloc(nc * sizeof *be);
+    int rc = SY_OK;
+    if (!dl || !sp || !H0 || !H1 || !al || !be) {
+        rc = sy_error_set(err, SY_ENOMEM, "Delves-Lyness moments for %d zeros", C);
+        goto done;
+    }
+    /* Periodic part L(t) - i C t, differentiated by its trigonometric interpolant. */
+    for (size_t j = 0; j < N; j++)
+        dl[j] = 0;
+    for (long k = -(long)(N / 2) + 1; k < (long)(N / 2); k++) {
+        double complex ck = 0;
+        for (size_t j = 0; j < N; j++) {
+            double t = 2 * M_PI * (double)j / (double)N;
+            ck += (s->logf[j] - I * (double)C * t) * cexp(-I * (double)k * t);
+        }
+        ck /= (double)N;
+        for (size_t j = 0; j < N && k != 0; j++) {
+            double t = 2 * M_PI * (double)j / (double)N;
+            dl[j] += I * (double)k * ck * cexp(I * (double)k * t);
+        }
+    }
+    for (size_t j = 0; j < N; j++) {
+        double t = 2 * M_PI * (double)j / (double)N;
+        double complex u = (point(c, t) - c->centre) / rho, up = 1, d = dl[j] + I * (double)C;
+        for (size_t q = 0; q < ns; q++, up *= u)
+            sp[q] += up * d / (I * (double)N);
+    }
+    for (int round_ = 0; round_ < DEFLATE_ROUNDS && rc == SY_OK; round_++) {
+        /* Power sums of the zeros not yet found. */
+        size_t m = nc - res->n_found;
+        if (m == 0)
+            break;
+        double complex *r = calloc(2 * m + 1, sizeof *r);
+        if (r == NULL) {
+            rc = sy_error_set(err, SY_ENOMEM, "Delves-Lyness");
+            break;
+        }
+        for (size_t q = 0; q <= 2 * m; q++) {
+            r[q] = sp[q];
+            for (size_t f = 0; f < res->n_found; f++)
+                r[q] -= cpow((eig[f].omega - c->centre) / rho, (double complex)q);
+        }
+        for (size_t a = 0; a < m; a++)
+            for (size_t b = 0; b < m; b++)
+                H0[b * m + a] = r[a + b], H1[b * m + a] = r[a + b + 1];
+        free(r);
+        lapack_int info = LAPACKE_zggev(LAPACK_COL_MAJOR, 'N', 'N', (lapack_int)m, H1, (lapack_int)m, H0, (lapack_int)m,
+                                        al, be, NULL, 1, NULL, 1);
+        if (info != 0) {
+            rc = sy_error_set(err, SY_ENOCONV, "contour: Delves-Lyness pencil failed (%d)", (int)info);
+            break;
+        }
+        size_t before = res->n_found;
+        for (size_t e = 0; e < m && rc == SY_OK; e++) {
+            if (cabs(be[e]) == 0)
+                continue;
+            rc = add_candidate(s->p, c, rho, st, al[e] / be[e], NULL, NULL, eig, max_eig, res, err);
+        }
+        if (res->n_found == before)
+            break; /* no progress */
+    }
+    res->rank = nc;
+    res->consistent = res->n_found == nc;
+done:
+    free(dl);
+    free(sp);
+    free(H0);
+    free(H1);
+    free(al);
+    free(be);
+    return rc;
+}
+
+int syi_nep_contour_multi(const syi_nep *p, size_t n_prob, const syi_ellipse *c, const syi_nep_settings *st,
+                          syi_nep_eig *const *eig, const size_t *max_eig, syi_nep_result *res, sy_error *err)
+{
+    size_t N = st->n_points;
+    if (n_prob == 0 || n_prob > SYI_NEP_MAX_PROBLEMS || N < 8 || st->n_moments == 0)
+        return sy_error_set(err, SY_EINVAL, "contour: %zu problems (1..%d), %zu points (>= 8), moments %zu", n_prob,
+                            SYI_NEP_MAX_PROBLEMS, N, st->n_moments);
+    pstate ps[SYI_NEP_MAX_PROBLEMS];
+    memset(ps, 0, sizeof ps);
+    int rc = SY_OK;
+    double rho = fmax(c->ax, c->ay), wsum = 0;
+    unsigned long long seed = st->seed ? st->seed : 0x9E3779B97F4A7C15ULL;
+    for (size_t q = 0; q < n_prob && rc == SY_OK; q++) {
+        pstate *s = &ps[q];
+        size_t n = p[q].n;
+        memset(&res[q], 0, sizeof res[q]);
+        s->p = &p[q];
+        s->l = n == 0 ? 0 : (st->n_columns < n ? st->n_columns : n);
+        if (n > 0 && s->l == 0)
+            rc = sy_error_set(err, SY_EINVAL, "contour: no probing columns");
+        s->np = n ? 2 * st->n_moments : 0;
+        s->V = malloc((n * s->l + 1) * sizeof *s->V);
+        s->X = malloc((n * s->l + 1) * sizeof *s->X);
+        s->A = calloc(s->np * n * s->l + 1, sizeof *s->A);
+        s->logf = malloc(N * sizeof *s->logf);
+        if (!s->V || !s->X || !s->A || !s->logf)
+            rc = sy_error_set(err, SY_ENOMEM, "contour integrals for n = %zu", n);
+        for (size_t i = 0; rc == SY_OK && i < n * s->l; i++)
+            s->V[i] = rnd(&seed);
+    }
+    pass pa = {c, ps, n_prob, 0, {0}, err};
+    double complex first[2 * SYI_NEP_MAX_PROBLEMS], prev[2 * SYI_NEP_MAX_PROBLEMS], cur[2 * SYI_NEP_MAX_PROBLEMS];
+    double inc[2 * SYI_NEP_MAX_PROBLEMS];
+    /* Trapezoid rule: (1/2 pi i) oint f dz = (1/(i N)) sum f(z_j) z'(t_j). */
+    for (size_t j = 0; j < N && rc == SY_OK; j++) {
+        double t = 2 * M_PI * (double)j / (double)N;
+        double complex z = point(c, t), dz = -c->ax * sin(t) + I * c->ay * cos(t);
+        double complex w = dz / (I * (double)N), u = (z - c->centre) / rho;
+        wsum += cabs(w);
+        for (size_t q = 0; q < n_prob && rc == SY_OK; q++) {
+            pstate *s = &ps[q];
+            size_t n = p[q].n, nl = n * s->l;
+            cur[2 * q + 1] = 0;
+            rc = p[q].solve(p[q].ctx, z, s->l, s->V, s->X, &cur[2 * q], &cur[2 * q + 1], err);
+            res[q].evaluations++;
+            if (rc != SY_OK) {
+                sy_error_prefix(err, "contour point omega = %g%+gi rad/s", creal(z), cimag(z));
+                break;
+            }
+            s->xmax = fmax(s->xmax, vnorm(s->X, nl));
+            double complex up = 1;
+            for (size_t k = 0; k < s->np; k++, up *= u)
+                for (size_t i = 0; i < nl; i++)
+                    s->A[k * nl + i] += up * w * s->X[i];
+        }
+        if (rc != SY_OK)
+            break;
+        if (j == 0) {
+            memcpy(first, cur, sizeof cur);
+            for (size_t q = 0; q < n_prob; q++)
+                ps[q].logf[0] = cur[2 * q];
+        } else {
+            memset(inc, 0, sizeof inc);
+            rc = track(&pa, 2 * M_PI * (double)(j - 1) / (double)N, prev, t, cur, 0, inc);
+            for (size_t k = 0; k < 2 * n_prob; k++)
+                pa.rate[k] = inc[k] / (2 * M_PI / (double)N);
+            for (size_t q = 0; q < n_prob; q++) {
+                ps[q].ph_det += inc[2 * q], ps[q].ph_pole += inc[2 * q + 1];
+                ps[q].logf[j] = creal(cur[2 * q]) + I * (cimag(ps[q].logf[j - 1]) + inc[2 * q]);
+            }
+        }
+        memcpy(prev, cur, sizeof cur);
+        if (st->progress != NULL)
+            st->progress(st->progress_ctx, j + 1, N);
+    }
+    if (rc == SY_OK) { /* close the loop */
+        memset(inc, 0, sizeof inc);
+        rc = track(&pa, 2 * M_PI * (double)(N - 1) / (double)N, prev, 2 * M_PI, first, 0, inc);
+        for (size_t q = 0; q < n_prob; q++) {
+            ps[q].ph_det += inc[2 * q], ps[q].ph_pole += inc[2 * q + 1];
+            res[q].count_low = (int)lround(ps[q].ph_det / (2 * M_PI));
+            res[q].count = (int)lround((ps[q].ph_det + ps[q].ph_pole) / (2 * M_PI));
+            res[q].refined = pa.refined;
+            res[q].evaluations += pa.refined;
+        }
+    }
+    for (size_t q = 0; q < n_prob && rc == SY_OK; q++) {
+        if (p[q].n > 0)
+            rc = beyn(&ps[q], c, rho, wsum, st, eig[q], max_eig[q], &res[q], err);
+        else
+            rc = delves_lyness(&ps[q], c, rho, N, st, eig[q], max_eig[q], &res[q], err);
+    }
+    for (size_t q = 0; q < n_prob; q++) {
+        free(ps[q].V);
+        free(ps[q].X);
+        free(ps[q].A);
+        free(ps[q].logf);
+    }
+    return rc;
+}
+
+int syi_nep_contour(const syi_nep *p, const syi_ellipse *c, const syi_nep_settings *st, syi_nep_eig *eig,
+                    size_t max_eig, syi_nep_result *res, sy_error *err)
+{
+    syi_nep_eig *const e[1] = {eig};
+    return syi_nep_contour_multi(p, 1, c, st, e, &max_eig, res, err);
 }

@@ -124,3 +124,8 @@ int syi_imp_eval(syi_imp *p, double complex w, double complex *z, double complex
         }
     return SY_OK;
 }
+
+int syi_imp_logdet_interaction(const syi_imp *p, double complex *logdet, sy_error *err)
+{
+    return sy_array_factored_logdet(p->plan, p->work, logdet, err);
+}

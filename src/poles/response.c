@@ -17,8 +17,10 @@
 #define DEFAULT_OMAX_FACTOR 5.0 /* heave response past 5 omega_r: the closed-form tail / omega^-4 */
 #define DEFAULT_OMAX_MIN 5.0 /* rad/s */
 #define DEFAULT_DW_PER_GAMMA 12.0  /* Filon error ~ (d_omega / gamma)^2 / 8 ~ 1e-3 */
-#define FILE_PERIODS 15.0    /* sy_poles_response_files: length, samples per period, pulse */
+#define FILE_PERIODS 15.0    /* sy_response_settings_standard: length, samples per period, pulse */
 #define FILE_SAMPLES 40.0
+#define FILE_PERIODS_MIN 3.0
+#define FILE_DECAY 7.0       /* e^-7: the slowest pole's share left at the end */
 #define FILE_PULSE 0.25
 #define DEFAULT_DW_MAX 0.01  /* rad/s */
 #define SMALL_Z 1e-3         /* below: series for the exponential quotients */
@@ -294,31 +296,25 @@ int sy_response_write_csv(const sy_response *r, const sy_model *m, const char *p
     return sy_outputs_write_file(path, fill_csv, &c, err);
 }
 
-int sy_poles_response_files(const sy_model *m, const sy_pole_set *ps, const char *prefix, sy_error *err)
+int sy_response_settings_standard(sy_response_settings *s, const sy_model *m, const sy_pole_set *ps,
+                                  sy_response_kind kind, sy_error *err)
 {
-    double wr = INFINITY;
+    double wr = INFINITY, gmin = INFINITY;
     for (size_t i = 0; i < ps->n; i++)
-        if (ps->poles[i].kind == SY_POLE_MOTION && ps->poles[i].omega_r > 0)
+        if (ps->poles[i].kind == SY_POLE_MOTION && ps->poles[i].omega_r > 0) {
             wr = fmin(wr, ps->poles[i].omega_r);
-    if (!isfinite(wr))
-        return sy_error_set(err, SY_EINPUT, "response files: no motion pole with omega_r > 0 in the region to time them by");
-    double period = 2 * M_PI / wr, a = m->n_devices > 0 ? m->devices[0].radius : m->radius;
-    sy_response_settings s = {SY_RESPONSE_DECAY, 0, 1.0, 0, FILE_PERIODS * period,
-                              (size_t)(FILE_PERIODS * FILE_SAMPLES) + 1, 0, 0};
-    const char *suffix[2] = {"_decay.csv", "_pulse.csv"};
-    int rc = SY_OK;
-    for (int k = 0; k < 2 && rc == SY_OK; k++) {
-        if (k == 1) { /* the static force of a 1 m heave, over a quarter period */
-            s.kind = SY_RESPONSE_PULSE, s.amplitude = m->rho * m->g * M_PI * a * a, s.duration = FILE_PULSE * period;
+            gmin = fmin(gmin, ps->poles[i].gamma);
         }
-        char path[SY_OUTPUTS_PATH_MAX + 16];
-        if ((size_t)snprintf(path, sizeof path, "%s%s", prefix, suffix[k]) >= sizeof path)
-            return sy_error_set(err, SY_EINVAL, "response files: prefix '%.40s...' too long", prefix);
-        sy_response *r = NULL;
-        rc = sy_poles_response(&r, m, ps, &s, err);
-        if (rc == SY_OK)
-            rc = sy_response_write_csv(r, m, path, err);
-        sy_response_free(r);
+    if (!isfinite(wr))
+        return sy_error_set(err, SY_EINPUT, "time response: no motion pole with omega_r > 0 in the region to time it by");
+    /* Long enough for the slowest-decaying pole to fall to e^-7 ~ 1e-3, at least 3 and at
+     * most 15 periods of the slowest pole. */
+    double period = 2 * M_PI / wr, a = m->n_devices > 0 ? m->devices[0].radius : m->radius;
+    double periods = fmax(FILE_PERIODS_MIN, fmin(FILE_PERIODS, ceil(FILE_DECAY / (gmin * period))));
+    *s = (sy_response_settings){SY_RESPONSE_DECAY, 0, 1.0, 0, periods * period,
+                                (size_t)(periods * FILE_SAMPLES) + 1, 0, 0};
+    if (kind == SY_RESPONSE_PULSE) { /* the static force of a 1 m heave, over a quarter period */
+        s->kind = SY_RESPONSE_PULSE, s->amplitude = m->rho * m->g * M_PI * a * a, s->duration = FILE_PULSE * period;
     }
-    return rc;
+    return SY_OK;
 }

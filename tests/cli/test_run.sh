@@ -75,6 +75,12 @@ for b in s["flagged_bands"]:
 print(len(s["flagged_bands"]), "flagged bands")
 PY
 ok $? "summary.json flagged_bands well formed"
+# The time response: written when motion poles were found (poles.csv has a motion row).
+if grep -q '^motion,' "$tmp/res/poles.csv"; then
+    [ -s "$tmp/res/time_response.png" ] && [ -s "$tmp/res/time_response.csv" ]
+    ok $? "time_response.png and .csv written beside poles.csv"
+    grep -q 'time_response.png' "$tmp/res/report.md"; ok $? "report.md links the time response"
+fi
 
 echo "$pass passed, $fail failed"
 [ "$fail" -eq 0 ]
