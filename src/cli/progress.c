@@ -69,6 +69,18 @@ static void callback(sy_progress *p, const char *label, size_t done, size_t tota
 void sy_cli_hydro_progress(void *ctx, size_t done, size_t total) { callback(ctx, "hydro", done, total); }
 void sy_cli_yield_progress(void *ctx, size_t done, size_t total) { callback(ctx, "sea states", done, total); }
 
+/* The pole search reports each contour's points; where it splits the region it starts
+ * again on a smaller contour, which gets a bar of its own. */
+void sy_cli_poles_progress(void *ctx, size_t done, size_t total)
+{
+    sy_progress *p = ctx;
+    if (p->active && done < p->done) {
+        sy_progress_end(p);
+        p->total = 0;
+    }
+    callback(p, "poles", done, total);
+}
+
 int sy_cli_parse_jobs(const char *text)
 {
     char *end;

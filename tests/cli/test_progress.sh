@@ -1,8 +1,9 @@
 #!/usr/bin/env bash
 # Progress bars of `swellyield run` (issue 7): drawn on stderr only when stderr is a
 # terminal, one per long loop (frequencies: "hydro"; sea states: "sea states"), each
-# ending at 100 % with elapsed and remaining time; --quiet draws none, and a run whose
-# stderr is a file or pipe writes none. The terminal is a pseudo-terminal from
+# ending at 100 % with elapsed and remaining time; the same for the pole search
+# (`poles`: "poles", one bar per contour); --quiet draws none, and a run whose stderr is a
+# file or pipe writes none. The terminal is a pseudo-terminal from
 # util-linux `script`. Runs the small invented project of test_run.sh.
 set -u
 prog=$1
@@ -44,6 +45,13 @@ LSAN_OPTIONS="${LSAN_OPTIONS:-}:print_suppressions=0" \
 ok $? "run with stderr to a file exits 0"
 [ ! -s "$tmp/stderr3.txt" ]
 ok $? "stderr not a terminal: nothing written to it"
+
+# The pole search (the region of test_run.sh's resonance case).
+printf '[resonance]\nregion = 1.0:1.8:0.2\nq_threshold = 2\n' >>"$tmp/p.ini"
+script -qec "$(printf '%q ' "$prog" poles "$tmp/p.ini" -o "$tmp/poles.csv") >$tmp/stdout.txt" "$tmp/tty4.txt" >/dev/null </dev/null
+ok $? "poles with stderr on a terminal exits 0"
+tr '\r' '\n' <"$tmp/tty4.txt" | grep -a '^poles  ' | tail -1 | grep -aqE '\] 100%  ([0-9]+)/\1  [0-9.]+s elapsed, 0.0s left'
+ok $? "contour bar ends at 100 % (points done = points on the contour)"
 
 echo "$pass passed, $fail failed"
 [ "$fail" -eq 0 ]
