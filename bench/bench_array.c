@@ -4,8 +4,15 @@
  * at 120 frequencies x 36 headings through sy_array_sweep on 2 threads, and peak memory.
  * Bodies: floats (radius 5 m, draft 4 m, heave) if the float kind is available, else
  * fixed columns (radius 5 m, surge) and the output says so. Invented layout: spacing
- * 30 m, depth 30 m, M = 6 orders, Q = 4 depth modes, tolerance 1e-6. */
+ * 30 m, depth 30 m, M = 6 orders, Q = 4 depth modes, tolerance 1e-6.
+ * Then the demo-like geometry (INVENTED: floats a = 5 m, d = 4 m, 40 m apart in 50 m of
+ * water, tolerance 1e-4, frequencies 0.25..2.5 rad/s) at the automatic truncation of the
+ * hydro module, with the per-mode angular truncation (what a run gets) and without it
+ * (2M+1 orders in every kept depth mode): N = 100 per frequency, and the 3 x 3 sweep. */
+#include "array/array_impl.h"
+#include "float_model.h"
 #include "swellyield/array.h"
+#include "swellyield/hydro.h"
 
 #include <cblas.h>
 #include <lapacke.h>
@@ -71,6 +78,120 @@ static double bare_lu(size_t n)
     free(a);
     free(piv);
     return t;
+}
+
+/* The sweep over omega[nw] on 1 and 2 threads, one line each. */
+static int sweep_rows(const sy_array_plan *plan, const double *omega, size_t nw, sy_array_hydro **res,
+                      const char *label, sy_error *err)
+{
+    int rc = SY_OK;
+    for (int threads = 1; threads <= 2 && rc == SY_OK; threads++) {
+        double t0 = now();
+        rc = sy_array_sweep(plan, omega, nw, res, threads, err);
+        double t = now() - t0;
+        if (rc == SY_OK)
+            printf("bench_array: %s (%zu unknowns), %zu frequencies x %zu headings, %d thread%s: %.3f s\n", label,
+                   sy_array_plan_n_unknowns(plan), nw, sy_array_plan_n_headings(plan), threads,
+                   threads > 1 ? "s" : "", t);
+    }
+    return rc;
+}
+
+/* Plan for the first n devices of the demo-like model: full = 0 through the hydro
+ * module (automatic truncation, per-mode orders), full = 1 the same M, Q with 2M+1 orders
+ * in every kept depth mode. */
+static int demo_plan(sy_array_plan **plan, const sy_model *m, size_t n, int full, sy_error *err)
+{
+    if (!full)
+        return sy_hydro_plan_create(plan, m, m->devices, n, err);
+    sy_array_settings s = {m->depth, m->rho, m->g, m->tolerance, 0, 0, 1e-3};
+    sy_hydro_truncation(m, m->devices, n, &s.n_order, &s.n_depth);
+    sy_array_type t = {{SY_BODY_FLOAT, 5.0, 4.0, 0.0}, SY_ARRAY_HEAVE};
+    sy_array_body *b = malloc(n * sizeof *b);
+    for (size_t i = 0; i < n; i++)
+        b[i] = (sy_array_body){m->devices[i].x, m->devices[i].y, 0};
+    int rc = syi_array_plan_create(plan, &s, &t, 1, b, n, m->headings, m->n_headings, 1, err);
+    free(b);
+    return rc;
+}
+
+static void demo_like(int use_float)
+{
+    if (!use_float)
+        return;
+    enum { NB = 100, NW = 120, NH = 36 };
+    static sy_model_device dev[NB];
+    double x[NB], y[NB], omega[NW], heads[NH];
+    for (size_t i = 0; i < NB; i++)
+        x[i] = 40.0 * (double)(i % 10), y[i] = 40.0 * (double)(i / 10);
+    for (size_t i = 0; i < NW; i++)
+        omega[i] = 0.25 + 2.25 * (double)i / (NW - 1);
+    for (size_t b = 0; b < NH; b++)
+        heads[b] = 2 * PI * (double)b / NH;
+    sy_model m;
+    sy_test_float_model(&m, dev, NB, x, y, omega, NW, heads, NH);
+    m.tolerance = 1e-4;
+    sy_error err = SY_ERROR_INIT;
+    size_t M, Q;
+    sy_hydro_truncation(&m, dev, NB, &M, &Q);
+    printf("bench_array: demo-like geometry (40 m spacing, 50 m depth, tolerance 1e-4): automatic M = %zu, Q = %zu\n",
+           M, Q);
+    /* N = 100, one frequency; the full truncation (8500 unknowns, ~45 s) only on request */
+    int with_full = getenv("SY_BENCH_FULL") != NULL;
+    for (int full = 0; full <= with_full; full++)
+        for (int bt = 1; bt <= 2; bt++) {
+            sy_array_plan *plan = NULL;
+            sy_array_work *work = NULL;
+            sy_array_hydro *res = NULL;
+            openblas_set_num_threads(bt);
+            double t0 = now();
+            int rc = demo_plan(&plan, &m, NB, full, &err);
+            double tp = now() - t0;
+            if (rc == SY_OK)
+                rc = sy_array_work_alloc(&work, plan, &err);
+            if (rc == SY_OK)
+                rc = sy_array_hydro_alloc(&res, plan, &err);
+            t0 = now();
+            if (rc == SY_OK)
+                rc = sy_array_solve(plan, 0.8, work, res, &err);
+            double t = now() - t0;
+            if (rc == SY_OK) {
+                size_t nu = sy_array_plan_n_unknowns(plan);
+                printf("bench_array: demo-like N = 100, %s: %zu unknowns, %d BLAS thread%s: %.3f s per frequency "
+                       "(bare LU %.3f s, plan %.2f s)\n", full ? "2M+1 orders per mode" : "per-mode orders", nu, bt,
+                       bt > 1 ? "s" : "", t, bare_lu(nu), tp);
+            } else {
+                printf("bench_array: demo-like N = 100 failed: %s\n", err.msg);
+            }
+            if (rc == SY_OK && !full && bt == 1) {
+                char text[256];
+                sy_array_plan_truncation(plan, text, sizeof text);
+                printf("bench_array: demo-like N = 100: %s\n", text);
+            }
+            sy_array_hydro_free(res);
+            sy_array_work_free(work);
+            sy_array_plan_free(plan);
+        }
+    openblas_set_num_threads(1);
+    /* the 3 x 3 demo layout, 120 frequencies x 36 headings */
+    static const double x9[9] = {0, 40, 80, 0, 40, 80, 0, 40, 80}, y9[9] = {0, 0, 0, 40, 40, 40, 80, 80, 80};
+    sy_test_float_model(&m, dev, 9, x9, y9, omega, NW, heads, NH);
+    m.tolerance = 1e-4;
+    for (int full = 0; full <= 1; full++) {
+        sy_array_plan *plan = NULL;
+        sy_array_hydro *res[NW] = {0};
+        int rc = demo_plan(&plan, &m, 9, full, &err);
+        for (size_t i = 0; rc == SY_OK && i < NW; i++)
+            rc = sy_array_hydro_alloc(&res[i], plan, &err);
+        if (rc == SY_OK)
+            rc = sweep_rows(plan, omega, NW, res, full ? "demo-like 3x3, 2M+1 orders per mode" : "demo-like 3x3, per-mode orders",
+                            &err);
+        if (rc != SY_OK)
+            printf("bench_array: demo-like sweep failed: %s\n", err.msg);
+        for (size_t i = 0; i < NW; i++)
+            sy_array_hydro_free(res[i]);
+        sy_array_plan_free(plan);
+    }
 }
 
 int main(void)
@@ -172,20 +293,26 @@ int main(void)
             if (rc == SY_OK)
                 rc = sy_array_hydro_alloc(&res[i], plan, &err);
         }
-        for (int threads = 1; threads <= 2 && rc == SY_OK; threads++) {
-            double t0 = now();
-            rc = sy_array_sweep(plan, omega, nw, res, threads, &err);
-            double t = now() - t0;
-            if (rc == SY_OK)
-                printf("bench_array: 3x3 array, Q = %zu (%zu unknowns), 120 frequencies x 36 headings, %d thread%s: %.3f s\n",
-                       Q, sy_array_plan_n_unknowns(plan), threads, threads > 1 ? "s" : "", t);
-        }
+        char label[64];
+        snprintf(label, sizeof label, "3x3 array, Q = %zu", Q);
+        if (rc == SY_OK)
+            rc = sweep_rows(plan, omega, nw, res, label, &err);
         if (rc != SY_OK)
             printf("bench_array: sweep failed: %s\n", err.msg);
         for (size_t i = 0; i < nw; i++)
             sy_array_hydro_free(res[i]);
         sy_array_plan_free(plan);
     }
+    {
+        sy_array_plan *plan = NULL;
+        if (make_plan(&plan, 100, use_float, &err) == SY_OK) {
+            char text[256];
+            sy_array_plan_truncation(plan, text, sizeof text);
+            printf("bench_array: bench geometry, N = 100: %s\n", text);
+        }
+        sy_array_plan_free(plan);
+    }
+    demo_like(use_float);
     struct rusage ru;
     getrusage(RUSAGE_SELF, &ru);
     printf("bench_array: peak resident memory %.1f MB\n", ru.ru_maxrss / 1024.0);

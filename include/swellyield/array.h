@@ -61,8 +61,13 @@ typedef struct sy_array_settings {
     double rho, g;       /* kg/m^3, m/s^2 (conventions.md defaults 1025, 9.81) */
     double tolerance;    /* relative accuracy target: body solves, and the cut-off below
                             which an evanescent depth mode's coupling between two bodies
-                            is dropped (its estimate K_0(k_q gap)/K_0(k_q a) < tolerance) */
-    size_t n_order;      /* M: angular orders -M..M kept per body */
+                            is dropped (its estimate K_0(k_q gap)/K_0(k_q a) < tolerance)
+                            and below which an evanescent mode's angular orders are
+                            dropped per body (every omitted Graf coupling coefficient
+                            |K_{n-m}(k_q L)| I_m(k_q a_i) / K_n(k_q a_j) < tolerance over
+                            all real frequencies; src/array/plan.c) */
+    size_t n_order;      /* M: angular orders -M..M kept per body in the propagating mode,
+                            the most any evanescent mode keeps */
     size_t n_depth;      /* Q: depth modes (1 propagating + Q-1 evanescent) */
     double margin;       /* bodies closer than r_i + r_j + margin (m) are rejected */
 } sy_array_settings;
@@ -85,15 +90,24 @@ SY_API size_t sy_array_plan_n_unknowns(const sy_array_plan *plan);
 SY_API size_t sy_array_plan_n_headings(const sy_array_plan *plan);
 SY_API void sy_array_plan_dof(const sy_array_plan *plan, size_t d, size_t *body, int *mode);
 /* Interaction unknown u (0..n_unknowns-1): its body, depth mode q (0 propagating) and
- * angular order n (-M..M). */
+ * angular order n (-M_q..M_q, M_q <= M the orders kept for that body and mode; see
+ * sy_array_plan_partial_waves). u out of range: body (size_t)-1, q 0, n 0. */
 SY_API void sy_array_plan_unknown(const sy_array_plan *plan, size_t u, size_t *body, size_t *depth_mode,
                                   long *order);
 /* Number of (body pair, evanescent mode) couplings dropped below the tolerance. */
 SY_API size_t sy_array_plan_dropped(const sy_array_plan *plan);
+/* Partial waves (angular orders, 2 M_q + 1) kept for depth mode q of a body: 2M+1 for the
+ * propagating mode q = 0, fewer for evanescent modes whose high orders couple to no
+ * neighbour above the tolerance, 0 if the body keeps no mode q (or body, q out of
+ * range). n_unknowns is the sum over bodies and modes. */
+SY_API size_t sy_array_plan_partial_waves(const sy_array_plan *plan, size_t body, size_t q);
 /* 64-bit FNV-1a hash of geometry, settings and headings (a cache key). */
 SY_API uint64_t sy_array_plan_key(const sy_array_plan *plan);
 /* One-line truncation record for output files ("M = 8, Q = 5, tolerance 1e-06, 3 of
- * 30 (pair, evanescent mode) couplings dropped"), written into buf[n] (truncated to fit). */
+ * 30 (pair, evanescent mode) couplings dropped, evanescent orders M_q <= 5 3 2 1, 213 of
+ * 340 unknowns": the largest order kept in each evanescent mode q = 1..Q-1 over the
+ * bodies, "-" where no body keeps the mode, and the unknowns kept of those with 2M+1
+ * orders in every kept mode), written into buf[n] (truncated to fit). */
 SY_API void sy_array_plan_truncation(const sy_array_plan *plan, char *buf, size_t n);
 /* Human-readable summary (bodies, types, truncation, dropped couplings) to f. */
 SY_API void sy_array_plan_describe(const sy_array_plan *plan, FILE *f);

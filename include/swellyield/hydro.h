@@ -14,7 +14,11 @@
  *     so that the weakest kept evanescent coupling e^{-k_Q gap} (k_q ~ q pi / h) is
  *     below the tolerance at the smallest gap between bounding circles. The float's
  *     sharp corner makes the convergence in Q algebraic at small gaps; the cap keeps
- *     the cost bounded and docs/hydro-convergence.md records what it costs in accuracy.
+ *     the cost bounded and docs/hydro-convergence.md records what it costs in accuracy;
+ *   within those, the array plan keeps fewer angular orders in each evanescent mode
+ *     (every omitted Graf coupling coefficient below the tolerance, src/array/plan.c):
+ *     M orders for the propagating mode, M_q <= M for mode q (the truncation record
+ *     lists them and the unknowns kept).
  *
  * Cache: with a cache folder, frequencies are solved in blocks of SY_HYDRO_BLOCK; each
  * block is stored as "<key>.nc" (a small database file; key = hash of the array plan,

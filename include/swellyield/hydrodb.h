@@ -13,6 +13,9 @@
  *   dof_body(dof) (0-based), dof_mode(dof) (1 surge .. 5 pitch)
  *   body_x(body), body_y(body) m; body_radius(body), body_draft(body) m; body_name(body,name_len)
  *   global: depth, density, gravity, tolerance, truncation (text), cache_key, software
+ *   (truncation: the array plan's record, sy_array_plan_truncation: M, Q, tolerance,
+ *   dropped pair couplings, then, from the per-mode angular truncation on, the largest
+ *   evanescent orders per mode and the unknowns kept; free text, read back as it is)
  * dof order is body-major (conventions.md). Writes are atomic (temporary + rename). */
 #ifndef SWELLYIELD_HYDRODB_H
 #define SWELLYIELD_HYDRODB_H

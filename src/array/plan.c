@@ -1,7 +1,8 @@
 /* Array plan: once per layout. Copies the layout, checks it (positive sizes, no two
  * bounding circles closer than the margin), makes one body plan per body type, and
  * prepares the pair geometry (distance L and direction alpha from centre j to centre i),
- * the per-pair depth-mode truncation and the index maps of unknowns and dofs.
+ * the per-pair depth-mode truncation, the per-mode angular truncation and the index maps
+ * of unknowns and dofs.
  *
  * Per-pair truncation: the evanescent wave of depth mode q leaving body j, normalised to
  * its value on r = a_j, reaches the nearest point of body i with relative size
@@ -9,7 +10,27 @@
  * bound of the real evanescent root, so c_q is an upper bound; K_n(x')/K_n(x) with
  * x' > x decreases with n, so n = 0 is the largest). Modes with max(c_q(i,j), c_q(j,i))
  * below the tolerance are dropped for that pair; the count is reported. An array of
- * columns only keeps q = 0: nothing there excites evanescent waves. */
+ * columns only keeps q = 0: nothing there excites evanescent waves.
+ *
+ * Per-mode angular truncation: body i keeps orders -M_iq..M_iq of evanescent mode q
+ * (M_i0 = M for the propagating mode). Graf's theorem for K (array.h) re-expands the
+ * outgoing partial wave (q, n) of body j, of unit size on its own surface r = a_j (the
+ * scaled basis), about body i; its incident component of order m has the size
+ *   C^{ij}_q(m, n) = |K_{n-m}(kq L)| I_m(kq a_i) / K_n(kq a_j)
+ * on body i's surface. Orders are kept in +-pairs and K_p grows with p, so the largest
+ * over the signs is at |n - m| = |m| + |n|. Dropping order m of mode q on body i omits
+ * row m (body i receives) and column m (body i sends) of its couplings, so M_iq is the
+ * largest |m| with C^{ij}_q(m, n) >= tol or C^{ji}_q(n, m) >= tol for some neighbour j
+ * coupled in mode q and some |n| <= M: every omitted coupling coefficient is below the
+ * tolerance (the same measure as the per-pair cut-off, now per order). The coefficients
+ * fall with the order like (a / (L - a))^m in the Laplace limit kq L -> 0 and faster
+ * (times e^{-kq (L - a_i - a_j)}) for larger kq, so higher modes need fewer orders.
+ * The bound is taken over the whole interval of the real root, kq h in
+ * ((q - 1/2) pi, q pi) (SAMPLES points: not monotone in kq for close bodies), i.e. over
+ * all real frequencies: the plan (matrix size, unknowns) does not depend on omega, and
+ * log det(I - D T) stays one analytic function of omega for the resonance search, which
+ * uses the same truncation off the axis. Values are carried as logarithms (high orders
+ * at small kq a overflow double). */
 #include "array_impl.h"
 
 #include "swellyield/special.h"
@@ -45,6 +66,117 @@ static double k0_ratio(double xp, double x)
         sy_special_besselk_scaled_array(0, x, &k, NULL) != SY_OK)
         return 1.0;   /* keep the mode if the estimate fails */
     return cabs(kp) / cabs(k) * exp(-(xp - x));
+}
+
+/* kq samples per evanescent mode for the per-mode orders (endpoints of the interval of
+ * the real root and three points between; see the file comment). */
+#define SAMPLES 5
+
+/* log K_n(x), n = 0..nmax, real x > 0: upward recurrence of the ratio K_n / K_{n-1}
+ * (K_{n+1} = K_{n-1} + (2n/x) K_n, stable for K). Returns 0, or -1 if K_0, K_1 fail. */
+static int log_besselk(size_t nmax, double x, double *out)
+{
+    double complex k[2];
+    if (sy_special_besselk_scaled_array(1, x, k, NULL) != SY_OK || !(creal(k[0]) > 0) || !(creal(k[1]) > 0))
+        return -1;
+    out[0] = log(creal(k[0])) - x;
+    double r = creal(k[1]) / creal(k[0]);
+    for (size_t n = 1; n <= nmax; n++) {
+        out[n] = out[n - 1] + log(r);
+        r = 1.0 / r + 2.0 * (double)n / x;
+    }
+    return 0;
+}
+
+/* log I_m(x), m = 0..mmax, real x > 0: the ratio I_{m+1}/I_m by backward recurrence
+ * (I_{m-1} = I_{m+1} + (2m/x) I_m, stable downward) started far enough above mmax
+ * that its start value no longer matters at the precision needed for a cut-off. */
+static int log_besseli(size_t mmax, double x, double *out)
+{
+    double complex i0;
+    if (sy_special_besseli_scaled_array(0, x, &i0, NULL) != SY_OK || !(creal(i0) > 0))
+        return -1;
+    size_t top = mmax + 30 + (size_t)(2 * x);
+    double rq = 0.0;   /* I_{m+1} / I_m, from m = top down */
+    out[0] = log(creal(i0)) + x;
+    double ratio[2 * SY_ARRAY_MAX_ORDER + 1];
+    for (size_t m = top; m-- > 0;) {
+        rq = 1.0 / (2.0 * (double)(m + 1) / x + rq);
+        if (m < mmax)
+            ratio[m] = rq;
+    }
+    for (size_t m = 1; m <= mmax; m++)
+        out[m] = out[m - 1] + log(ratio[m - 1]);
+    return 0;
+}
+
+static void raise(long *x, size_t v)
+{
+    if ((long)v > *x)
+        *x = (long)v;
+}
+
+/* Orders needed by the pair (i, j) in evanescent mode q (file comment): need_i, need_j
+ * raised to the largest order of each body with a coupling coefficient >= tol (left as
+ * they are when none is). On a failed Bessel evaluation every order is kept. */
+static void pair_orders(const sy_array_plan *p, size_t i, size_t j, size_t q, long *need_i, long *need_j)
+{
+    const size_t M = p->M;
+    const double L = p->pair_L[i * p->n_bodies + j], ltol = log(p->set.tolerance);
+    const double ai = p->types[p->bodies[i].type].geom.radius, aj = p->types[p->bodies[j].type].geom.radius;
+    double lkl[2 * SY_ARRAY_MAX_ORDER + 1], lii[SY_ARRAY_MAX_ORDER + 1], lij[SY_ARRAY_MAX_ORDER + 1];
+    double lki[SY_ARRAY_MAX_ORDER + 1], lkj[SY_ARRAY_MAX_ORDER + 1];
+    for (int s = 0; s < SAMPLES; s++) {
+        double kq = ((double)q - 0.5 + 0.5 * s / (SAMPLES - 1)) * SY_ARRAY_PI / p->set.h;
+        if (log_besselk(2 * M, kq * L, lkl) || log_besseli(M, kq * ai, lii) || log_besseli(M, kq * aj, lij) ||
+            log_besselk(M, kq * ai, lki) || log_besselk(M, kq * aj, lkj)) {
+            *need_i = *need_j = (long)M;
+            return;
+        }
+        for (size_t m = 0; m <= M; m++)
+            for (size_t n = 0; n <= M; n++) {
+                /* body i receives m from n of body j, and body j receives m from n of i */
+                if (lkl[m + n] + lii[m] - lkj[n] >= ltol) {
+                    raise(need_i, m);
+                    raise(need_j, n);
+                }
+                if (lkl[m + n] + lij[m] - lki[n] >= ltol) {
+                    raise(need_j, m);
+                    raise(need_i, n);
+                }
+            }
+    }
+}
+
+/* M_iq for every body and kept evanescent mode, and the offsets of the unknowns. */
+static void mode_orders(sy_array_plan *p)
+{
+    const size_t N = p->n_bodies, Q = p->Q, M = p->M;
+    for (size_t i = 0; i < N; i++)
+        for (size_t q = 0; q < Q; q++)
+            p->ord[i * Q + q] = p->full_orders || q == 0 ? M : 0;
+    for (size_t q = 1; q < Q && !p->full_orders; q++)
+        for (size_t i = 0; i < N; i++)
+            for (size_t j = i + 1; j < N; j++) {
+                if (p->pair_nq[i * N + j] <= q)
+                    continue;
+                long ni = (long)p->ord[i * Q + q], nj = (long)p->ord[j * Q + q];
+                pair_orders(p, i, j, q, &ni, &nj);
+                p->ord[i * Q + q] = (size_t)ni;
+                p->ord[j * Q + q] = (size_t)nj;
+            }
+    size_t u = 0;
+    p->n_full = 0;
+    for (size_t i = 0; i < N; i++) {
+        p->unk_off[i] = u;
+        for (size_t q = 0; q < p->nq[i]; q++) {
+            p->blk_off[i * Q + q] = u;
+            u += 2 * p->ord[i * Q + q] + 1;
+        }
+        p->n_full += p->nq[i] * p->nn;
+    }
+    p->unk_off[N] = u;
+    p->n_unknowns = u;
 }
 
 static int layout(sy_array_plan *p, sy_error *err)
@@ -85,7 +217,6 @@ static int layout(sy_array_plan *p, sy_error *err)
         }
     }
     /* unknowns and dofs */
-    p->unk_off[0] = 0;
     p->dof_off[0] = 0;
     p->n_rad = 0;
     for (size_t i = 0; i < N; i++) {
@@ -94,7 +225,6 @@ static int layout(sy_array_plan *p, sy_error *err)
             if (j != i && p->pair_nq[i * N + j] > nq)
                 nq = p->pair_nq[i * N + j];
         p->nq[i] = nq;
-        p->unk_off[i + 1] = p->unk_off[i] + nq * p->nn;
         const sy_array_type *t = &p->types[p->bodies[i].type];
         size_t nd = 0;
         for (int m = 0; m < SY_BODY_NMODES; m++)
@@ -104,7 +234,7 @@ static int layout(sy_array_plan *p, sy_error *err)
         if (t->geom.kind == SY_BODY_FLOAT)
             p->n_rad += nd;
     }
-    p->n_unknowns = p->unk_off[N];
+    mode_orders(p);
     p->n_dof = p->dof_off[N];
     p->n_rhs = p->n_headings + p->n_rad;
     p->dof_body = malloc((p->n_dof + 1) * sizeof *p->dof_body);
@@ -135,6 +265,14 @@ int sy_array_plan_create(sy_array_plan **out, const sy_array_settings *settings,
                          const sy_array_type *types, size_t n_types,
                          const sy_array_body *bodies, size_t n_bodies,
                          const double *headings, size_t n_headings, sy_error *err)
+{
+    return syi_array_plan_create(out, settings, types, n_types, bodies, n_bodies, headings, n_headings, 0, err);
+}
+
+int syi_array_plan_create(sy_array_plan **out, const sy_array_settings *settings,
+                          const sy_array_type *types, size_t n_types, const sy_array_body *bodies,
+                          size_t n_bodies, const double *headings, size_t n_headings, int full_orders,
+                          sy_error *err)
 {
     if (out == NULL || settings == NULL || types == NULL || bodies == NULL ||
         (headings == NULL && n_headings > 0))
@@ -172,6 +310,7 @@ int sy_array_plan_create(sy_array_plan **out, const sy_array_settings *settings,
     p->M = settings->n_order;
     p->Q = settings->n_depth;
     p->nn = 2 * p->M + 1;
+    p->full_orders = full_orders != 0;
     p->types = malloc(n_types * sizeof *p->types);
     p->bodies = malloc(N * sizeof *p->bodies);
     p->headings = malloc((n_headings + 1) * sizeof *p->headings);
@@ -180,10 +319,13 @@ int sy_array_plan_create(sy_array_plan **out, const sy_array_settings *settings,
     p->pair_alpha = calloc(N * N, sizeof *p->pair_alpha);
     p->pair_nq = calloc(N * N, sizeof *p->pair_nq);
     p->nq = calloc(N, sizeof *p->nq);
+    p->ord = calloc(N * p->Q, sizeof *p->ord);
+    p->blk_off = calloc(N * p->Q, sizeof *p->blk_off);
     p->unk_off = calloc(N + 1, sizeof *p->unk_off);
     p->dof_off = calloc(N + 1, sizeof *p->dof_off);
     if (p->types == NULL || p->bodies == NULL || p->headings == NULL || p->bplan == NULL ||
         p->pair_L == NULL || p->pair_alpha == NULL || p->pair_nq == NULL || p->nq == NULL ||
+        p->ord == NULL || p->blk_off == NULL ||
         p->unk_off == NULL || p->dof_off == NULL) {
         sy_array_plan_free(p);
         return sy_error_set(err, SY_ENOMEM, "array plan for %zu bodies", N);
@@ -227,6 +369,8 @@ void sy_array_plan_free(sy_array_plan *p)
     free(p->pair_alpha);
     free(p->pair_nq);
     free(p->nq);
+    free(p->ord);
+    free(p->blk_off);
     free(p->unk_off);
     free(p->dof_off);
     free(p->dof_body);
@@ -285,7 +429,23 @@ uint64_t sy_array_plan_key(const sy_array_plan *p)
         h = fnv(h, &t, sizeof t);
     }
     h = fnv(h, p->headings, p->n_headings * sizeof *p->headings);
+    /* the per-mode orders: a change of the truncation rule changes the key (cache) */
+    h = fnv(h, p->ord, p->n_bodies * p->Q * sizeof *p->ord);
     return h;
+}
+
+/* "M_q <= 4 3 2 1 -" (q = 1..Q-1; "-": no body keeps the mode) into buf[n]. */
+static void orders_text(const sy_array_plan *p, char *buf, size_t n)
+{
+    size_t used = (size_t)snprintf(buf, n, "evanescent orders M_q <=");
+    for (size_t q = 1; q < p->Q && used < n; q++) {
+        long most = -1;
+        for (size_t i = 0; i < p->n_bodies; i++)
+            if (q < p->nq[i])
+                raise(&most, p->ord[i * p->Q + q]);
+        used += most < 0 ? (size_t)snprintf(buf + used, n - used, " -")
+                         : (size_t)snprintf(buf + used, n - used, " %ld", most);
+    }
 }
 
 void sy_array_plan_truncation(const sy_array_plan *p, char *buf, size_t n)
@@ -293,8 +453,19 @@ void sy_array_plan_truncation(const sy_array_plan *p, char *buf, size_t n)
     if (buf == NULL || n == 0)
         return;
     size_t pairs = p->n_bodies * (p->n_bodies - 1) / 2 * (p->Q - 1);
-    snprintf(buf, n, "M = %zu, Q = %zu, tolerance %g, %zu of %zu (pair, evanescent mode) couplings dropped",
-             p->M, p->Q, p->set.tolerance, p->dropped, pairs);
+    char ord[128];
+    orders_text(p, ord, sizeof ord);
+    snprintf(buf, n,
+             "M = %zu, Q = %zu, tolerance %g, %zu of %zu (pair, evanescent mode) couplings dropped, "
+             "%s, %zu of %zu unknowns",
+             p->M, p->Q, p->set.tolerance, p->dropped, pairs, ord, p->n_unknowns, p->n_full);
+}
+
+size_t sy_array_plan_partial_waves(const sy_array_plan *p, size_t body, size_t q)
+{
+    if (body >= p->n_bodies || q >= p->nq[body])
+        return 0;
+    return 2 * p->ord[body * p->Q + q] + 1;
 }
 
 void sy_array_plan_describe(const sy_array_plan *p, FILE *f)
@@ -313,5 +484,9 @@ void sy_array_plan_describe(const sy_array_plan *p, FILE *f)
     fprintf(f, "array: %zu unknowns, %zu dofs (%zu radiating), %zu headings, %zu right-hand sides\n",
             p->n_unknowns, p->n_dof, p->n_rad, p->n_headings, p->n_rhs);
     fprintf(f, "array: %zu (pair, evanescent mode) couplings below tolerance dropped\n", p->dropped);
+    char ord[128];
+    orders_text(p, ord, sizeof ord);
+    fprintf(f, "array: %s (largest over bodies), %zu of %zu unknowns%s\n", ord, p->n_unknowns, p->n_full,
+            p->full_orders ? " (per-mode orders off)" : "");
     fprintf(f, "array: key %016" PRIx64 "\n", sy_array_plan_key(p));
 }

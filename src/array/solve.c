@@ -4,13 +4,15 @@
  * at once (headings, then every radiating dof), then
  *   total incident alpha = direct incident + T~ beta   (zgemm per pair block),
  *   forces F = G~ alpha,   X = F (headings),   Z = Z_iso - F (radiation columns).
- * Scaled basis and index maps: array_impl.h. Incident wave of unit amplitude about the
+ * Scaled basis and index maps (each body and depth mode with its own orders
+ * -M_iq..M_iq, chosen by the plan): array_impl.h. Incident wave of unit amplitude about the
  * centre c_i of body i (Jacobi-Anger): a_{0n} = -(i g / omega) P_i i^n e^{-i n beta},
  * P_i = exp(i k0 (x_i cos beta + y_i sin beta)). No allocation here. */
 #include "array_impl.h"
 
 #include "swellyield/special.h"
 
+#include <cblas.h>
 #include <lapacke.h>
 #include <math.h>
 #include <stdlib.h>
@@ -181,14 +183,16 @@ int syi_array_translation(const sy_array_plan *plan, sy_array_work *w, sy_error 
             for (size_t q = 0; q < plan->pair_nq[i * N + j]; q++) {
                 double complex k = wavenumber(w, q);
                 double complex *f = &w->pairfn[((i * N + j) * Q + q) * np];
+                /* orders |n - m| up to M_iq + M_jq of the block */
+                size_t pmax = syi_array_order(plan, i, q) + syi_array_order(plan, j, q);
                 int rc;
                 if (q == 0) {
-                    rc = sy_special_hankel1_array((int)(2 * M), k * L, f, err);
+                    rc = sy_special_hankel1_array((int)pmax, k * L, f, err);
                 } else {
-                    rc = sy_special_besselk_scaled_array((int)(2 * M), k * L, f, err);
+                    rc = sy_special_besselk_scaled_array((int)pmax, k * L, f, err);
                     /* K(kL) = Ks(kL) e^{-kL}; the scales hold |K(k a)| itself */
                     double complex e = cexp(-k * L);
-                    for (size_t p = 0; p < np; p++)
+                    for (size_t p = 0; p <= pmax; p++)
                         f[p] *= e;
                 }
                 if (rc != SY_OK) {
@@ -204,8 +208,9 @@ int syi_array_translation(const sy_array_plan *plan, sy_array_work *w, sy_error 
 void syi_array_block(const sy_array_plan *plan, const sy_array_work *w, size_t i, size_t j, size_t q,
                      double complex *out)
 {
-    const size_t N = plan->n_bodies, M = plan->M, Q = plan->Q, nn = plan->nn;
-    const long Ml = (long)M;
+    const size_t N = plan->n_bodies, M = plan->M, Q = plan->Q;
+    const long Mi = (long)syi_array_order(plan, i, q), Mj = (long)syi_array_order(plan, j, q);
+    const size_t nc = (size_t)(2 * Mj + 1), pmax = (size_t)(Mi + Mj);
     const size_t lo = i < j ? i : j, hi = i < j ? j : i;
     const double complex *f = &w->pairfn[((lo * N + hi) * Q + q) * (2 * M + 1)];
     /* alpha is the direction from centre j to centre i (pair_alpha[i N + j]) */
@@ -213,21 +218,21 @@ void syi_array_block(const sy_array_plan *plan, const sy_array_work *w, size_t i
     const size_t ti = plan->bodies[i].type, tj = plan->bodies[j].type;
     double complex ph[4 * SY_ARRAY_MAX_ORDER + 1], *phase = ph + 2 * M;
     phase[0] = 1.0;
-    for (size_t p = 1; p <= 2 * M; p++) {
+    for (size_t p = 1; p <= pmax; p++) {
         phase[p] = phase[p - 1] * e1;
         phase[-(long)p] = conj(phase[p]) / (creal(e1) * creal(e1) + cimag(e1) * cimag(e1));
     }
-    for (long m = -Ml; m <= Ml; m++) {
+    for (long m = -Mi; m <= Mi; m++) {
         double si = syi_array_scale(plan, w, ti, q, m);
         /* (-1)^m of the K addition theorem (array.h) */
         double sgn_m = (q > 0 && (m & 1)) ? -1.0 : 1.0;
-        double complex *row = &out[(size_t)(m + Ml) * nn];
-        for (long n = -Ml; n <= Ml; n++) {
+        double complex *row = &out[(size_t)(m + Mi) * nc];
+        for (long n = -Mj; n <= Mj; n++) {
             long p = n - m, ap = p < 0 ? -p : p;
             double complex v = f[ap];
             if (q == 0 && p < 0 && (ap & 1))   /* H_{-p} = (-1)^p H_p; K_{-p} = K_p */
                 v = -v;
-            row[n + Ml] = sgn_m * v * phase[p] / (si * syi_array_scale(plan, w, tj, q, n));
+            row[n + Mj] = sgn_m * v * phase[p] / (si * syi_array_scale(plan, w, tj, q, n));
         }
     }
 }
@@ -250,8 +255,10 @@ static double complex dscaled(const sy_array_plan *plan, const sy_array_work *w,
 }
 
 /* mat = I - D~ T~, block by block: rows (i, q, m), columns (j, q', n) get
- * -D~^i_m(q, q') T~^{ij}_{q'}[m, n]. With radiation != 0 the same pass fills the direct
- * incident columns of every radiating dof of body j on body i: inc = T~^{ij} rho^j. */
+ * -D~^i_m(q, q') T~^{ij}_{q'}[m, n] for |m| <= min(M_iq, M_iq') (an incident order
+ * of mode q' that body i does not keep is below the tolerance, plan.c). With
+ * radiation != 0 the same pass fills the direct incident columns of every radiating dof
+ * of body j on body i: inc = T~^{ij} rho^j. */
 static void assemble(const sy_array_plan *plan, sy_array_work *w, int radiation)
 {
     const size_t N = plan->n_bodies, nn = plan->nn, nu = plan->n_unknowns;
@@ -268,29 +275,34 @@ static void assemble(const sy_array_plan *plan, sy_array_work *w, int radiation)
             size_t tj = plan->bodies[j].type;
             for (size_t qp = 0; qp < plan->pair_nq[i * N + j]; qp++) {
                 syi_array_block(plan, w, i, j, qp, w->blk);
-                size_t col0 = plan->unk_off[j] + qp * nn;
-                for (size_t q = 0; q < nqi; q++)
-                    for (long m = -Ml; m <= Ml; m++) {
+                const long Mi = (long)syi_array_order(plan, i, qp), Mj = (long)syi_array_order(plan, j, qp);
+                const size_t nc = (size_t)(2 * Mj + 1), col0 = syi_array_unknown(plan, j, qp, -Mj);
+                for (size_t q = 0; q < nqi; q++) {
+                    long Mq = (long)syi_array_order(plan, i, q);
+                    if (Mq > Mi)
+                        Mq = Mi;
+                    for (long m = -Mq; m <= Mq; m++) {
                         double complex d = dscaled(plan, w, ti, m, q, qp);
                         if (d == 0.0)
                             continue;
-                        double complex *out = &w->mat[(plan->unk_off[i] + q * nn + (size_t)(m + Ml)) * nu + col0];
-                        const double complex *b = &w->blk[(size_t)(m + Ml) * nn];
-                        for (size_t c = 0; c < nn; c++)
+                        double complex *out = &w->mat[syi_array_unknown(plan, i, q, m) * nu + col0];
+                        const double complex *b = &w->blk[(size_t)(m + Mi) * nc];
+                        for (size_t c = 0; c < nc; c++)
                             out[c] -= cmul(d, b[c]);
                     }
+                }
                 if (!radiation || plan->types[tj].geom.kind != SY_BODY_FLOAT)
                     continue;
                 for (size_t r = plan->rad_first[j]; r < plan->rad_first[j + 1]; r++) {
                     int mode = plan->dof_mode[plan->rad_dof[r]];
                     const double complex *R = &w->bwaves[tj]->radiation[((size_t)(mode - 1) * Q + qp) * nn];
                     size_t col = plan->n_headings + r;
-                    for (long m = -Ml; m <= Ml; m++) {
-                        const double complex *b = &w->blk[(size_t)(m + Ml) * nn];
+                    for (long m = -Mi; m <= Mi; m++) {
+                        const double complex *b = &w->blk[(size_t)(m + Mi) * nc];
                         double complex acc = 0.0;
-                        for (long n = -Ml; n <= Ml; n++)
-                            acc += b[n + Ml] * R[n + Ml] * syi_array_scale(plan, w, tj, qp, n);
-                        w->inc[col * nu + plan->unk_off[i] + qp * nn + (size_t)(m + Ml)] = acc;
+                        for (long n = -Mj; n <= Mj; n++)
+                            acc += b[n + Mj] * R[n + Ml] * syi_array_scale(plan, w, tj, qp, n);
+                        w->inc[col * nu + syi_array_unknown(plan, i, qp, m)] = acc;
                     }
                 }
             }
@@ -298,29 +310,25 @@ static void assemble(const sy_array_plan *plan, sy_array_work *w, int radiation)
     }
 }
 
-/* inc += T~ sol (total incident = direct + translated scattered), block by block.
- * Right-hand sides are stored column after column (inc[c n_u + u]). */
+/* inc += T~ sol (total incident = direct + translated scattered), block by block: one
+ * zgemm per (pair, depth mode) over all right-hand sides, which are stored column after
+ * column (inc[c n_u + u], a column-major n_u x n_rhs matrix); the row-major block read
+ * column-major is its transpose, hence CblasTrans. */
 static void add_translated(const sy_array_plan *plan, sy_array_work *w)
 {
-    const size_t N = plan->n_bodies, nn = plan->nn, nr = plan->n_rhs, nu = plan->n_unknowns;
+    const size_t N = plan->n_bodies, nr = plan->n_rhs, nu = plan->n_unknowns;
+    const double complex one = 1.0;
     for (size_t i = 0; i < N; i++)
         for (size_t j = 0; j < N; j++) {
             if (j == i)
                 continue;
             for (size_t q = 0; q < plan->pair_nq[i * N + j]; q++) {
                 syi_array_block(plan, w, i, j, q, w->blk);
-                size_t ri = plan->unk_off[i] + q * nn, cj = plan->unk_off[j] + q * nn;
-                for (size_t c = 0; c < nr; c++) {
-                    const double complex *x = &w->sol[c * nu + cj];
-                    double complex *y = &w->inc[c * nu + ri];
-                    for (size_t m = 0; m < nn; m++) {
-                        const double complex *b = &w->blk[m * nn];
-                        double complex acc = 0.0;
-                        for (size_t n = 0; n < nn; n++)
-                            acc += cmul(b[n], x[n]);
-                        y[m] += acc;
-                    }
-                }
+                const long Mi = (long)syi_array_order(plan, i, q), Mj = (long)syi_array_order(plan, j, q);
+                const size_t nrow = (size_t)(2 * Mi + 1), nc = (size_t)(2 * Mj + 1);
+                size_t ri = syi_array_unknown(plan, i, q, -Mi), cj = syi_array_unknown(plan, j, q, -Mj);
+                cblas_zgemm(CblasColMajor, CblasTrans, CblasNoTrans, (int)nrow, (int)nr, (int)nc, &one,
+                            w->blk, (int)nc, &w->sol[cj], (int)nu, &one, &w->inc[ri], (int)nu);
             }
         }
 }
@@ -361,8 +369,8 @@ static void incident_waves(const sy_array_plan *plan, sy_array_work *w, double c
             for (long n = 0; n <= Ml; n++) {
                 /* n >= 0: i^n e^{-i n beta};  -n: i^{-n} e^{i n beta} */
                 double s = syi_array_scale(plan, w, t, 0, n);
-                w->inc[b * nu + plan->unk_off[i] + (size_t)(n + Ml)] = fp / s;
-                w->inc[b * nu + plan->unk_off[i] + (size_t)(Ml - n)] = fm / s;
+                w->inc[b * nu + syi_array_unknown(plan, i, 0, n)] = fp / s;
+                w->inc[b * nu + syi_array_unknown(plan, i, 0, -n)] = fm / s;
                 fp *= step;
                 fm /= step;
             }
@@ -373,23 +381,24 @@ static void incident_waves(const sy_array_plan *plan, sy_array_work *w, double c
 /* Right-hand sides sol = D~ inc (every column). */
 static void apply_diffraction(const sy_array_plan *plan, sy_array_work *w)
 {
-    const size_t N = plan->n_bodies, nn = plan->nn, nr = plan->n_rhs, nu = plan->n_unknowns;
-    const long Ml = (long)plan->M;
+    const size_t N = plan->n_bodies, nr = plan->n_rhs, nu = plan->n_unknowns;
     memset(w->sol, 0, nu * nr * sizeof *w->sol);
     for (size_t i = 0; i < N; i++) {
         size_t t = plan->bodies[i].type, nq = plan->nq[i];
-        for (size_t q = 0; q < nq; q++)
-            for (long m = -Ml; m <= Ml; m++) {
-                size_t row = plan->unk_off[i] + q * nn + (size_t)(m + Ml);
+        for (size_t q = 0; q < nq; q++) {
+            const long Mq = (long)syi_array_order(plan, i, q);
+            for (long m = -Mq; m <= Mq; m++) {
+                size_t row = syi_array_unknown(plan, i, q, m);
                 for (size_t qp = 0; qp < nq; qp++) {
                     double complex dd = dscaled(plan, w, t, m, q, qp);
-                    if (dd == 0.0)
+                    if (dd == 0.0 || labs(m) > (long)syi_array_order(plan, i, qp))
                         continue;
-                    size_t src = plan->unk_off[i] + qp * nn + (size_t)(m + Ml);
+                    size_t src = syi_array_unknown(plan, i, qp, m);
                     for (size_t c = 0; c < nr; c++)
                         w->sol[c * nu + row] += cmul(dd, w->inc[c * nu + src]);
                 }
             }
+        }
     }
 }
 
@@ -431,15 +440,17 @@ int sy_array_solve(const sy_array_plan *plan, double complex omega, sy_array_wor
         const double complex *G = &w->bwaves[t]->force[(size_t)(mode - 1) * Q * nn];
         double complex *f = &w->force[d * nr];
         memset(f, 0, nr * sizeof *f);
-        for (size_t q = 0; q < plan->nq[i]; q++)
-            for (long n = -Ml; n <= Ml; n++) {
+        for (size_t q = 0; q < plan->nq[i]; q++) {
+            const long Mq = (long)syi_array_order(plan, i, q);
+            for (long n = -Mq; n <= Mq; n++) {
                 double complex g = G[q * nn + (size_t)(n + Ml)] * syi_array_scale(plan, w, t, q, n);
                 if (g == 0.0)
                     continue;
-                size_t u = plan->unk_off[i] + q * nn + (size_t)(n + Ml);
+                size_t u = syi_array_unknown(plan, i, q, n);
                 for (size_t c = 0; c < nr; c++)
                     f[c] += cmul(g, w->inc[c * nu + u]);
             }
+        }
     }
     (void)N;
     res->omega = omega;

@@ -116,7 +116,8 @@ int sy_hydro_plan_create(sy_array_plan **out, const sy_model *m, const sy_model_
     }
     sy_array_settings s = {m->depth, m->rho, m->g, m->tolerance, 0, 0, 1e-3};
     sy_hydro_truncation(m, dev, n, &s.n_order, &s.n_depth);
-    /* Memory bound: one dense complex matrix of N (2M+1) Q unknowns per thread. */
+    /* Memory bound, up front (before the body plans): one dense complex matrix of at most
+     * N (2M+1) Q unknowns per thread (the plan's per-mode angular truncation keeps fewer). */
     double nu = (double)n * (double)(2 * s.n_order + 1) * (double)s.n_depth, bytes = 16.0 * nu * nu;
     if (rc == SY_OK && bytes > SY_HYDRO_MAX_MATRIX_BYTES)
         rc = sy_error_set(err, SY_ELIMIT,

@@ -55,6 +55,10 @@ int main(void)
         sy_check_true(body == 1 && mode == 2, "dof 3 is body 1 sway (got %zu, %d)", body, mode);
         sy_array_plan_dof(p, 4, &body, &mode);
         sy_check_true(body == 2 && mode == 1, "dof 4 is body 2 surge (got %zu, %d)", body, mode);
+        /* columns only: the propagating mode alone, 2M+1 partial waves per body */
+        sy_check_true(sy_array_plan_partial_waves(p, 1, 0) == 9 && sy_array_plan_partial_waves(p, 1, 1) == 0 &&
+                          sy_array_plan_partial_waves(p, 3, 0) == 0 && sy_array_plan_n_unknowns(p) == 27,
+                      "partial waves: 9 per body in mode 0, none in mode 1 or beyond the bodies");
         b[2].x += 1e-9;
         rc = sy_array_plan_create(&q, &good, types, 2, b, 3, beta, 2, &err);
         sy_check_true(rc == SY_OK && sy_array_plan_key(p) != sy_array_plan_key(q),

@@ -64,7 +64,7 @@ int main(void)
         sy_array_plan_free(plan);
         return sy_check_summary();
     }
-    const size_t N = plan->n_bodies, nn = plan->nn, nu = plan->n_unknowns;
+    const size_t N = plan->n_bodies, nu = plan->n_unknowns;
     sy_check_true(plan->nq[0] == Q, "all %zu depth modes couple to body 0 (got %zu)", Q, plan->nq[0]);
     /* Random scaled outgoing coefficients beta (|beta| <= 1: each partial wave at most
      * unit size on its own body's surface), fixed seed. */
@@ -78,17 +78,19 @@ int main(void)
         beta_v[u] = re + I * im;
     }
     /* alpha = T~ beta from the module's translation blocks */
-    double complex *blk = malloc(nn * nn * sizeof *blk);
+    double complex *blk = malloc(plan->nn * plan->nn * sizeof *blk);
     for (size_t u = 0; u < nu; u++)
         alpha[u] = 0.0;
     for (size_t i = 0; i < N; i++)
         for (size_t j = 0; j < N; j++)
             for (size_t q = 0; j != i && q < plan->pair_nq[i * N + j]; q++) {
                 syi_array_block(plan, w, i, j, q, blk);
-                for (size_t m = 0; m < nn; m++)
-                    for (size_t n = 0; n < nn; n++)
-                        alpha[plan->unk_off[i] + q * nn + m] +=
-                            blk[m * nn + n] * beta_v[plan->unk_off[j] + q * nn + n];
+                const long Mi = (long)syi_array_order(plan, i, q), Mj = (long)syi_array_order(plan, j, q);
+                for (long m = -Mi; m <= Mi; m++)
+                    for (long n = -Mj; n <= Mj; n++)
+                        alpha[syi_array_unknown(plan, i, q, m)] +=
+                            blk[(size_t)(m + Mi) * (size_t)(2 * Mj + 1) + (size_t)(n + Mj)] *
+                            beta_v[syi_array_unknown(plan, j, q, n)];
             }
     free(blk);
     for (size_t i = 0; i < N; i++) {
@@ -108,16 +110,18 @@ int main(void)
                     size_t tj = plan->bodies[j].type;
                     double dx = px - plan->bodies[j].x, dy = py - plan->bodies[j].y;
                     double rj = hypot(dx, dy), thj = atan2(dy, dx);
-                    for (int n = -(int)M; n <= (int)M; n++) {
-                        size_t u = plan->unk_off[j] + q * nn + (size_t)(n + (int)M);
+                    const int Mj = (int)syi_array_order(plan, j, q);
+                    for (int n = -Mj; n <= Mj; n++) {
+                        size_t u = syi_array_unknown(plan, j, q, n);
                         double complex b = beta_v[u] / syi_array_scale(plan, w, tj, q, n);
                         direct += b * hhat(q, n, k * rj) * cexp(I * n * thj);
                     }
                 }
                 /* translated: incident coefficients of body i */
                 double complex trans = 0.0;
-                for (int m = -(int)M; m <= (int)M; m++) {
-                    size_t u = plan->unk_off[i] + q * nn + (size_t)(m + (int)M);
+                const int Mi = (int)syi_array_order(plan, i, q);
+                for (int m = -Mi; m <= Mi; m++) {
+                    size_t u = syi_array_unknown(plan, i, q, m);
                     double complex a = alpha[u] * syi_array_scale(plan, w, ti, q, m);
                     trans += a * jhat(q, m, k * ai) * cexp(I * m * th);
                 }
