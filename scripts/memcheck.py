@@ -28,6 +28,7 @@ import json
 import os
 import re
 import shutil
+import signal
 import subprocess
 import sys
 import tempfile
@@ -124,6 +125,20 @@ def main():
     status = 0
     roots = []
     t_all = time.time()
+    # Stopped (SIGTERM) or not, the shadow folders go.
+    signal.signal(signal.SIGTERM, lambda *_: sys.exit(143))
+    try:
+        status = run_all(a, tests, build, logs, vg, roots)
+    finally:
+        for r in roots:
+            shutil.rmtree(r, ignore_errors=True)
+    print("memcheck: %d tests, %s, %.0f s wall (-j %d)" % (
+        len(tests), "all clean" if status == 0 else "FAILURES", time.time() - t_all, a.j))
+    return status
+
+
+def run_all(a, tests, build, logs, vg, roots):
+    status = 0
     with concurrent.futures.ThreadPoolExecutor(max_workers=max(1, a.j)) as pool:
         futs = []
         for t in tests:
@@ -142,10 +157,6 @@ def main():
                 flush=True)
             if rc != 0:
                 sys.stdout.write("".join("    | " + l + "\n" for l in out.splitlines()[-15:]))
-    print("memcheck: %d tests, %s, %.0f s wall (-j %d)" % (
-        len(tests), "all clean" if status == 0 else "FAILURES", time.time() - t_all, a.j))
-    for r in roots:
-        shutil.rmtree(r, ignore_errors=True)
     return status
 
 
