@@ -70,8 +70,13 @@ int main(void)
      * unit size on its own body's surface), fixed seed. */
     double complex *beta_v = malloc(nu * sizeof *beta_v), *alpha = malloc(nu * sizeof *alpha);
     srand(12345);
-    for (size_t u = 0; u < nu; u++)
-        beta_v[u] = (rand() / (double)RAND_MAX - 0.5) + I * (rand() / (double)RAND_MAX - 0.5);
+    for (size_t u = 0; u < nu; u++) { /* two statements: the order of the draws is then the
+                                         same for every compiler (within one expression C
+                                         leaves it unspecified; clang and GCC differ) */
+        double im = rand() / (double)RAND_MAX - 0.5;
+        double re = rand() / (double)RAND_MAX - 0.5;
+        beta_v[u] = re + I * im;
+    }
     /* alpha = T~ beta from the module's translation blocks */
     double complex *blk = malloc(plan->nn * plan->nn * sizeof *blk);
     for (size_t u = 0; u < nu; u++)
