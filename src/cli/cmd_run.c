@@ -165,10 +165,10 @@ int sy_cmd_run(int argc, char **argv)
                 nb++;
             }
             snprintf(note, sizeof note,
-                     "%zu motion resonances found (argument-principle count %d), %zu with Q > %g flagged; "
-                     "scattering resonances counted: %d",
+                     "%zu motion resonances found (argument-principle count %d), %zu bands with Q > %g flagged; "
+                     "%zu scattering resonances of the fixed array found (count %d)",
                      ps->found[SY_POLE_MOTION], ps->count[SY_POLE_MOTION], nb, m->q_threshold,
-                     ps->count[SY_POLE_SCATTERING]);
+                     ps->found[SY_POLE_SCATTERING], ps->count[SY_POLE_SCATTERING]);
         }
     }
     sy_progress yprog = {0};
