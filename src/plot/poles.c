@@ -1,9 +1,11 @@
 /* Picture 5 (when the run searched for resonances): the poles in the complex omega plane
  * (Re omega horizontal, Im omega <= 0 vertical), marker size growing with the quality
- * factor Q = omega_r / (2 gamma) (log scale: Q 1 -> small, Q >= 100 -> largest), motion
- * and no-PTO families in their own colours, and the [resonance] search rectangle. */
+ * factor Q = omega_r / (2 gamma) (log scale: Q 1 -> small, Q >= 100 -> largest), motion,
+ * no-PTO and scattering families in their own colours, and the [resonance] search
+ * rectangle. A multiple pole (listed once per mode shape) is one dot. */
 #include "plot_impl.h"
 
+#include <complex.h>
 #include <math.h>
 #include <plplot.h>
 #include <stdio.h>
@@ -41,8 +43,20 @@ int syi_plot_poles(const char *dir, const char *ext, const sy_model *m, const sy
         syi_plot_dashed(0);
         plwidth(1.5);
     }
+    /* One dot and label per distinct pole (a multiple pole is listed once per mode shape);
+     * a label that would sit on an earlier one goes below its dot. */
+    size_t distinct = 0;
     for (size_t i = 0; i < p->n; i++) {
         const sy_pole *q = &p->poles[i];
+        int again = 0, below = 0;
+        for (size_t k = 0; k < i && !again; k++) {
+            const sy_pole *o = &p->poles[k];
+            again = o->kind == q->kind && cabs(o->omega - q->omega) <= 1e-6 * cabs(q->omega);
+            below |= fabs(o->omega_r - q->omega_r) < 0.08 * (x1 - x0) && fabs(o->gamma - q->gamma) < 0.08 * (y1 - y0);
+        }
+        if (again)
+            continue;
+        distinct++;
         double size = 0.8 + 1.6 * fmin(1.0, fmax(0.0, log10(fmax(q->q, 1.0)) / 2.0));
         PLFLT px[1] = {q->omega_r}, py[1] = {-q->gamma};
         plcol0(q->kind == SY_POLE_MOTION ? SYI_PC_A : q->kind == SY_POLE_MOTION_NO_PTO ? SYI_PC_D : SYI_PC_B);
@@ -52,17 +66,33 @@ int syi_plot_poles(const char *dir, const char *ext, const sy_model *m, const sy
         snprintf(lab, sizeof lab, "Q %.3g", q->q);
         plcol0(SYI_PC_INK);
         plschr(0.0, 0.85);
-        plptex(q->omega_r, -q->gamma + 0.04 * (y1 - y0) * size, 1.0, 0.0, 0.5, lab);
+        double off = 0.04 * (y1 - y0) * size;
+        plptex(q->omega_r, -q->gamma + (below ? -1.6 * off : off), 1.0, 0.0, 0.5, lab);
         plschr(0.0, 1.15);
     }
     plssym(0.0, 1.0);
     plcol0(SYI_PC_INK);
+    plsyax(6, 0); /* plain numbers: a separate x10^k label would sit on the title */
     plbox("bcnst", syi_plot_nice_step(x1 - x0, 8), 0, "bcnstv", syi_plot_nice_step(y1 - y0, 6), 0);
-    syi_plot_legend_box(2, 0);
+    plsyax(0, 0);
+    /* Legend: the region, then each family present (dot size grows with Q). */
+    static const struct { sy_pole_kind kind; int col; const char *text; } fam[3] = {
+        {SY_POLE_MOTION, SYI_PC_A, "motion, PTO as set (size grows with Q)"},
+        {SY_POLE_MOTION_NO_PTO, SYI_PC_D, "motion, PTO removed"},
+        {SY_POLE_SCATTERING, SYI_PC_B, "scattering, array held fixed"}};
+    int present[3] = {0, 0, 0};
+    size_t nl = 1;
+    for (size_t i = 0; i < p->n; i++)
+        for (int k = 0; k < 3; k++)
+            if (p->poles[i].kind == fam[k].kind && !present[k])
+                present[k] = 1, nl++;
+    syi_plot_legend_box(nl, 0);
     syi_plot_legend_line(0, 0, SYI_PC_C, 1, "search region ([resonance])");
-    syi_plot_legend_line(1, 0, SYI_PC_A, 0, "motion poles (dot size grows with Q)");
+    for (int k = 0, l = 1; k < 3; k++)
+        if (present[k])
+            syi_plot_legend_line((size_t)l++, 0, fam[k].col, 0, fam[k].text);
     char title[128];
-    snprintf(title, sizeof title, "Array resonances: %zu poles in the complex frequency plane", p->n);
+    snprintf(title, sizeof title, "Array resonances: %zu poles in the complex frequency plane", distinct);
     syi_plot_labels("Re #gw (rad/s)", "", title);
     plmtex("l", 5.2, 0.5, 0.5, "Im #gw (rad/s)");
     return syi_plot_end(&c, SY_OK, err);
