@@ -26,14 +26,18 @@ int main(int argc, char **argv)
     m.tolerance = 1e-4, m.has_resonance = 1, m.q_threshold = 5;
     strcpy(m.path, "bench");
     struct { double lo, hi, depth; unsigned kinds; const char *what; } cases[] = {
+        {1.15, 1.30, 0.05, SY_POLES_NO_PTO | SY_POLES_SCATTERING,
+         "no PTO (lightly damped heave modes) and fixed-array scattering"},
         {1.15, 1.45, 0.05, SY_POLES_NO_PTO | SY_POLES_SCATTERING,
          "no PTO (lightly damped heave modes) and fixed-array scattering"},
     };
+    size_t n_cases = sizeof cases / sizeof cases[0];
     if (argc == 5) { /* bench_poles RE_MIN RE_MAX IM_DEPTH KINDS: another region */
+        n_cases = 1;
         cases[0].lo = atof(argv[1]), cases[0].hi = atof(argv[2]), cases[0].depth = atof(argv[3]);
         cases[0].kinds = (unsigned)atoi(argv[4]);
     }
-    for (size_t c = 0; c < sizeof cases / sizeof cases[0]; c++) {
+    for (size_t c = 0; c < n_cases; c++) {
         m.res_re_min = cases[c].lo, m.res_re_max = cases[c].hi, m.res_im_depth = cases[c].depth;
         sy_pole_set *set = NULL;
         sy_error err = SY_ERROR_INIT;
@@ -48,6 +52,11 @@ int main(int argc, char **argv)
         printf("bench_poles: 3 x 3 floats, %s, region %g..%g x -%g rad/s: %zu array evaluations, %.1f s, "
                "%.1f evaluations per pole\n", cases[c].what, cases[c].lo, cases[c].hi, cases[c].depth,
                set->evaluations, t, found ? (double)set->evaluations / (double)found : 0.0);
+        printf("    evaluations: %zu contour + %zu phase tracking + %zu polish (%.2f polish per pole)\n",
+               set->evaluations_contour, set->evaluations_tracking,
+               set->evaluations - set->evaluations_contour - set->evaluations_tracking,
+               found ? (double)(set->evaluations - set->evaluations_contour - set->evaluations_tracking) / (double)found
+                     : 0.0);
         for (int k = 0; k < 3; k++)
             if (set->count[k] != SY_POLES_NOT_SEARCHED)
                 printf("    %-14s count %d, found %zu\n", sy_pole_kind_name((sy_pole_kind)k), set->count[k], set->found[k]);

@@ -10,3 +10,4 @@ include(SyJansson)
 include(SyArb)
 include(SyPLplot)
 include(SyOpenMP)
+include(SyCmplx)   # not a library: C11 CMPLX where the C library lacks it for this compiler

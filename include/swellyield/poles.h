@@ -16,9 +16,19 @@
  * winding(det Z) <= zeros of Z <= winding(det Z) + winding(det(I - D T)) (Z is meromorphic:
  * its poles are the coupled scattering resonances). Scattering: Delves-Lyness power sums of
  * the zeros of det(I - D T) from the same contour's log-determinants (free with each array
- * solve). Every pole is polished by a secant iteration to max(1e-12, tolerance / 100)
+ * solve). Every pole is polished to a predicted error of max(1e-12, tolerance / 100)
  * relative (the float body's truncation, chosen per frequency from [solve] tolerance, makes
- * T analytic only to about that level; use tolerance 1e-8 or tighter for poles to 1e-10).
+ * T analytic only to about that level; use tolerance 1e-8 or tighter for poles to 1e-10):
+ * motion poles by a Newton step whose derivative comes from the contour's residue (one
+ * evaluation when the contour estimate is already accurate, two or three otherwise), then
+ * a secant; scattering poles by a secant on det(I - D T), on its square root where the
+ * secant's rate shows a double zero (the two-dimensional representations of a symmetric
+ * layout: such a zero is listed twice, as the count has it). The residual and the mode
+ * come from the last evaluation, within the final step of the pole. A motion count below
+ * the upper bound winding(det Z) + winding(det(I - D T)) is accepted without a check that
+ * the scattering zeros left over are not poles of Z (a zero whose wave pattern does not
+ * move the bodies' dofs, e.g. by symmetry, decouples): `found` within [lower, upper] is
+ * what the search verifies.
  * The phase of the determinants is tracked continuously, with extra points where it turns
  * fast (det(I - D T) turns quickly well below the real axis: there the scattering count
  * needs many points, see docs/benchmarks.md). Where a family's count, rank and found
@@ -49,7 +59,8 @@ typedef struct sy_pole {
     double omega_r, gamma;   /* rad/s */
     double q;                /* omega_r / (2 gamma) (INFINITY for a real pole) */
     sy_pole_kind kind;
-    double residual;         /* |Z v| / (|Z| |v|) estimate at the polished pole */
+    double residual;         /* |Z v| / (|Z| |v|) at the last evaluation of the polish (within
+                                its final step); SCATTERING: last step / |omega| */
     int converged;           /* polish met 1e-10 */
     const double complex *mode; /* MOTION: complex amplitude of every dof (n_dof), largest 1;
                                    SCATTERING (models with one dof per body, else NULL):
@@ -67,7 +78,9 @@ typedef struct sy_pole_set {
     double complex *modes;       /* storage for the mode shapes */
     int count[3];                /* argument-principle count per kind (SY_POLES_NOT_SEARCHED: not searched) */
     size_t found[3];             /* poles found per kind */
-    size_t evaluations;          /* complex-frequency array evaluations (contour + polish) */
+    size_t evaluations;          /* complex-frequency array evaluations (contour + polish + modes) */
+    size_t evaluations_contour;  /* of which quadrature points of the contour(s) */
+    size_t evaluations_tracking; /* of which extra points of the phase tracking */
     double complex centre;       /* the ellipse used: centre and semi-axes, rad/s */
     double ax, ay;
 } sy_pole_set;

@@ -111,6 +111,21 @@ SY_API int sy_yield_compute_banded(sy_yield_result **out, const sy_model *model,
                                    const sy_hydro_db *const *iso_db, const double *bands,
                                    size_t n_bands, sy_error *err);
 
+/* Progress of a yield computation, for a caller's progress bar: `done` of `total` units
+ * of work, where a unit is one sea-state group's damping search (per-sea-state tuning),
+ * one bin's stroke check and store (per-sea-state tuning), or one group's share of the
+ * site-wide damping search (reported when that search ends). Called from the calling
+ * thread, with done non-decreasing and finally equal to total; it must not call back into
+ * the library with the same objects. */
+typedef void (*sy_yield_progress)(void *ctx, size_t done, size_t total);
+
+/* sy_yield_compute_banded with a progress callback (progress may be NULL). */
+SY_API int sy_yield_compute_progress(sy_yield_result **out, const sy_model *model,
+                                     const sy_climate_table *climate, const sy_hydro_db *array_db,
+                                     const sy_hydro_db *const *iso_db, const double *bands,
+                                     size_t n_bands, sy_yield_progress progress,
+                                     void *progress_ctx, sy_error *err);
+
 #ifdef __cplusplus
 }
 #endif

@@ -32,6 +32,10 @@ void sy_progress_step(sy_progress *p, size_t done);
 void sy_progress_end(sy_progress *p);
 /* sy_hydro_build progress callback: ctx is a zeroed sy_progress, started on first call. */
 void sy_cli_hydro_progress(void *ctx, size_t done, size_t total);
+/* sy_yield_compute_progress callback (sea-state searches and bins), the same way. */
+void sy_cli_yield_progress(void *ctx, size_t done, size_t total);
+/* sy_poles_find_progress callback (contour points); a new bar for each contour. */
+void sy_cli_poles_progress(void *ctx, size_t done, size_t total);
 /* --jobs value 1..1024, or 0 if the text is not one. */
 int sy_cli_parse_jobs(const char *text);
 

@@ -43,8 +43,11 @@ int sy_cmd_poles(int argc, char **argv)
     sy_model *m = NULL;
     sy_pole_set *set = NULL;
     int rc = sy_model_load(&m, argv[optind], &err);
+    sy_progress prog = {0};
     if (rc == SY_OK)
-        rc = sy_poles_find(&set, m, SY_POLES_MOTION | SY_POLES_NO_PTO | SY_POLES_SCATTERING, &err);
+        rc = sy_poles_find_progress(&set, m, SY_POLES_MOTION | SY_POLES_NO_PTO | SY_POLES_SCATTERING,
+                                    sy_cli_poles_progress, &prog, &err);
+    sy_progress_end(&prog);
     if (rc == SY_OK && out != NULL)
         rc = sy_outputs_write_poles(out, m, set, &err);
     if (rc == SY_OK && tprefix != NULL) { /* PREFIX = [folder/]stem */

@@ -137,7 +137,10 @@ int sy_cmd_run(int argc, char **argv)
     char note[SY_ERROR_MSG_MAX + 64] = "not run (swellyield run --resonances; needs a [resonance] region)";
     if (rc == SY_OK && want_res) {
         sy_error perr = SY_ERROR_INIT;
-        int prc = sy_poles_find(&ps, m, SY_POLES_MOTION | SY_POLES_SCATTERING, &perr);
+        sy_progress pprog = {0};
+        int prc = sy_poles_find_progress(&ps, m, SY_POLES_MOTION | SY_POLES_SCATTERING, sy_cli_poles_progress, &pprog,
+                                         &perr);
+        sy_progress_end(&pprog);
         if (prc != SY_OK) {
             snprintf(note, sizeof note, "failed: %s", perr.msg);
         } else {
@@ -158,8 +161,11 @@ int sy_cmd_run(int argc, char **argv)
                      ps->count[SY_POLE_SCATTERING]);
         }
     }
+    sy_progress yprog = {0};
     if (rc == SY_OK)
-        rc = sy_yield_compute_banded(&yr, m, cl, hs->array, hs->iso_of_device, edges, nb, &err);
+        rc = sy_yield_compute_progress(&yr, m, cl, hs->array, hs->iso_of_device, edges, nb, sy_cli_yield_progress,
+                                       &yprog, &err);
+    sy_progress_end(&yprog);
     char path[SY_OUTPUTS_PATH_MAX + 64];
     if (rc == SY_OK && (rc = sy_outputs_path(&st, "hydro.nc", path, sizeof path, &err)) == SY_OK)
         rc = sy_hydro_db_write(hs->array, path, &err);

@@ -52,17 +52,33 @@ void sy_progress_end(sy_progress *p)
 {
     if (!p->active)
         return;
-    sy_progress_step(p, p->total);
+    p->last = -1.0; /* redraw now, at what was done: all of it, or where a failure stopped */
+    sy_progress_step(p, p->done);
     fputc('\n', stderr);
     p->active = 0;
 }
 
-void sy_cli_hydro_progress(void *ctx, size_t done, size_t total)
+/* The library's progress callbacks: ctx is a zeroed sy_progress, started on first call. */
+static void callback(sy_progress *p, const char *label, size_t done, size_t total)
+{
+    if (p->total == 0)
+        sy_progress_start(p, label, total);
+    sy_progress_step(p, done);
+}
+
+void sy_cli_hydro_progress(void *ctx, size_t done, size_t total) { callback(ctx, "hydro", done, total); }
+void sy_cli_yield_progress(void *ctx, size_t done, size_t total) { callback(ctx, "sea states", done, total); }
+
+/* The pole search reports each contour's points; where it splits the region it starts
+ * again on a smaller contour, which gets a bar of its own. */
+void sy_cli_poles_progress(void *ctx, size_t done, size_t total)
 {
     sy_progress *p = ctx;
-    if (p->total == 0)
-        sy_progress_start(p, "hydro", total);
-    sy_progress_step(p, done);
+    if (p->active && done < p->done) {
+        sy_progress_end(p);
+        p->total = 0;
+    }
+    callback(p, "poles", done, total);
 }
 
 int sy_cli_parse_jobs(const char *text)

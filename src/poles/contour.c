@@ -13,6 +13,10 @@
 #define POLISH_MAX_ITER 16
 #define DEDUP_REL 1e-7      /* two polished eigenvalues closer than this (relative) are one */
 #define DEDUP_LOOSE 1e-4   /* ... when one of them did not converge (noise of T reached) */
+/* A polish that stalls with the residual |T v| / (|T| |v|) above this is not near an
+ * eigenvalue (a stall at T's noise leaves ~1e-8): the estimate is dropped. */
+#define NOT_AN_EIGENVALUE 1e-4
+#define CLUSTER_REL 1e-4   /* contour estimates this close: a multiple eigenvalue, split by quadrature error */
 #define INSIDE_MARGIN 1e-9
 #define NOTHING_INSIDE 1e-9 /* moments this small relative to |T^-1 V| r: no eigenvalue inside */
 /* Phase tracking: a wrapped phase step above this between neighbouring points may hide a
@@ -122,79 +126,119 @@ static int track(pass *ps, double t0, const double complex *a, double t1, const 
     return rc == SY_OK ? track(ps, tm, m, t1, b, depth + 1, inc) : rc;
 }
 
-/* Secant on g(w) = 1 / (v^T T(w)^-1 v); v updated by inverse iteration at the end. For a
- * determinant-only problem the secant runs on f itself: f0 / f1 = exp(log f0 - log f1). */
+/* Polish of one eigenvalue estimate w0.
+ * Matrix problems: g(w) = 1 / (v^H T(w)^-1 b), v the eigenvector estimate (|v| = 1). When
+ * b = V c is the probing block combined so that the contour's residue of T^-1 V c at the
+ * eigenvalue is v itself and those of the other eigenvalues vanish (beyn()), g(w) ~ w -
+ * lambda near lambda (g' = 1, known without an evaluation): the first step is a Newton
+ * step from one evaluation, and the secant takes over from the second. Without b (b ==
+ * NULL) the secant starts from two evaluations, b = v. Determinant-only problems: secant
+ * on f itself, f0 / f1 = exp(log f0 - log f1), two evaluations to start; with
+ * multiplicity m > 1 on f^(1/m) (a double zero, e.g. a two-dimensional representation of a
+ * symmetric layout, converges linearly on f and stalls at the square root of its noise).
+ * Stop when the predicted error of the new iterate (step x the observed contraction of the
+ * steps; for the first Newton step, step x RESIDUE_TRUST) is below polish_tol (a Newton
+ * start that diverges falls back to the secant from the best point so far): the
+ * eigenvector and residual come from the last evaluation (within one step of the pole),
+ * so a pole whose contour estimate is already accurate costs one evaluation. */
+#define RESIDUE_TRUST 1e-2 /* the contour's residue is taken to be accurate to 1 %% */
+#define DOUBLE_RATIO_LO 0.45 /* secant on a double root: steps shrink by ~0.6 (golden ratio) */
+#define DOUBLE_RATIO_HI 0.85
 static int polish(const syi_nep *p, const syi_nep_settings *st, double complex w0, double complex *v,
-                  double complex *x, syi_nep_eig *out, size_t *evals, sy_error *err)
+                  const double complex *b, double complex *x, syi_nep_eig *out, size_t *evals, sy_error *err)
 {
     size_t n = p->n;
-    double complex wprev = w0 * (1.0 + 1e-7) + 1e-9, w = w0, gprev = 0, g = 0, wbest = w0;
-    double last_step = INFINITY, gbest = INFINITY;
-    int rc = SY_OK, conv = 0;
+    double m = 1.0;
+    int reverted = 0, restarted = 0;
+    const double complex *rhs = b != NULL ? b : v;
+    double complex w = w0, wprev = 0, gprev = 0, wbest = w0, wnext = w0;
+    double last_step = INFINITY, gbest = INFINITY, res = 0;
+    int rc = SY_OK, conv = 0, have_prev = 0, have_x = 0;
     for (int it = 0; it < POLISH_MAX_ITER && !conv; it++) {
-        for (int pass = (it == 0 ? 0 : 1); pass < 2; pass++) {
-            double complex at = pass == 0 ? wprev : w, ld = 0, gv;
-            rc = p->solve(p->ctx, at, n ? 1 : 0, v, x, n ? NULL : &ld, NULL, err);
-            (*evals)++;
-            if (rc == SY_ESINGULAR) { /* exactly at the eigenvalue */
-                w = at, conv = 1, rc = SY_OK;
-                break;
-            }
-            if (rc != SY_OK)
-                return rc;
-            if (n > 0) {
-                double complex s = 0;
+        double complex ld = 0, g;
+        rc = p->solve(p->ctx, w, n ? 1 : 0, rhs, x, n ? NULL : &ld, NULL, err);
+        (*evals)++;
+        if (rc == SY_ESINGULAR) { /* exactly at the eigenvalue */
+            sy_error_clear(err);
+            rc = SY_OK, conv = 1, wnext = w;
+            break;
+        }
+        if (rc != SY_OK)
+            return rc;
+        if (n > 0) {
+            double complex s = 0;
+            for (size_t i = 0; i < n; i++)
+                s += conj(v[i]) * x[i];
+            if (b == NULL) { /* v^T T^-1 v: the symmetric form for a symmetric T */
+                s = 0;
                 for (size_t i = 0; i < n; i++)
                     s += v[i] * x[i];
-                gv = 1.0 / s;
-            } else {
-                gv = ld; /* log f: the secant below uses ratios */
             }
-            if (pass == 0)
-                gprev = gv;
-            else
-                g = gv;
-            double size = n > 0 ? log(cabs(gv)) : creal(gv); /* log |g| or log |f| */
-            if (size < gbest) /* |g| ~ distance to the eigenvalue: keep the closest point */
-                gbest = size, wbest = at;
+            g = 1.0 / s;
+            res = vnorm(rhs, n) / vnorm(x, n) / p->scale;
+            have_x = 1;
+        } else {
+            g = ld / m; /* log f^(1/m): the secant below uses ratios */
         }
-        if (conv)
+        double size = n > 0 ? log(cabs(g)) : creal(ld); /* |g| or |f|: closeness to the eigenvalue */
+        if (size < gbest)
+            gbest = size, wbest = w;
+        double complex step;
+        double predicted;
+        if (!have_prev && n > 0 && b != NULL && !restarted) {
+            step = g, predicted = cabs(step) * RESIDUE_TRUST;
+        } else if (!have_prev) { /* second starting point */
+            wprev = w, gprev = g, have_prev = 1;
+            w = w * (1.0 + 1e-7) + 1e-9;
+            continue;
+        } else {
+            step = n > 0 ? g * (w - wprev) / (g - gprev) : (w - wprev) / (1.0 - cexp(gprev - g));
+            predicted = isfinite(last_step) ? cabs(step) * fmin(1.0, cabs(step) / last_step) : cabs(step);
+            double ratio = cabs(step) / last_step;
+            if (n == 0 && m == 1.0 && !reverted && it >= 3 && ratio > DOUBLE_RATIO_LO && ratio < DOUBLE_RATIO_HI) {
+                /* linear convergence at the secant's double-root rate: go on with f^(1/2) */
+                m = 2.0, g /= 2.0, gprev /= 2.0;
+                step = (w - wprev) / (1.0 - cexp(gprev - g));
+                predicted = cabs(step), last_step = INFINITY;
+            }
+        }
+        if (!isfinite(creal(step)) || !isfinite(cimag(step))) {
+            wnext = wbest;
             break;
-        double complex step = n > 0 ? g * (w - wprev) / (g - gprev) : (w - wprev) / (1.0 - cexp(gprev - g));
-        if (!isfinite(creal(step)) || !isfinite(cimag(step)))
-            break;
+        }
         /* Past the first steps a secant on an analytic function shrinks its step
          * superlinearly; a step that stops shrinking means T's own noise (truncation that
-         * varies with omega) has been reached: stop there, not polished. */
-        if (it >= 3 && cabs(step) > 0.5 * last_step) {
-            w = wbest;
-            break;
+         * varies with omega) has been reached: stop there, not polished. A double root
+         * guessed wrongly (the zero is simple) stalls too: start again from the best point
+         * with m = 1. */
+        if ((it >= 3 && cabs(step) > 0.5 * last_step) || (b != NULL && !restarted && it == 1 && cabs(step) > last_step)) {
+            wnext = wbest;
+            if (b != NULL && !restarted) { /* the residue's Newton step diverged: secant from the best point */
+                restarted = 1, have_prev = 0, last_step = INFINITY, w = wbest;
+                continue;
+            }
+            if (m == 1.0 || reverted)
+                break;
+            m = 1.0, reverted = 1, have_prev = 0, last_step = INFINITY, w = wbest;
+            continue;
         }
         last_step = cabs(step);
-        wprev = w, gprev = g;
-        w -= step;
-        conv = cabs(step) <= st->polish_tol * cabs(w);
+        wprev = w, gprev = g, have_prev = 1;
+        wnext = w - step;
+        conv = predicted <= st->polish_tol * cabs(wnext);
+        w = wnext;
     }
-    out->omega = w;
+    out->omega = wnext;
     out->converged = conv;
+    out->multiplicity = conv && m == 2.0 ? 2 : 1;
     if (n == 0) {
-        out->residual = isfinite(last_step) ? last_step / cabs(w) : 0.0;
+        out->residual = isfinite(last_step) ? last_step / cabs(wnext) : 0.0;
         return SY_OK;
     }
-    /* Final eigenvector and residual at w: x = T^-1 v, residual |v| / |x| / scale. */
-    rc = p->solve(p->ctx, w, 1, v, x, NULL, NULL, err);
-    (*evals)++;
-    double res = 0;
-    if (rc == SY_OK) {
-        double nx = vnorm(x, n), nv = vnorm(v, n);
-        res = nv / nx / p->scale;
+    /* Eigenvector from the last evaluation: x = T^-1 b, dominated by the pole term. */
+    if (have_x)
         for (size_t i = 0; i < n; i++)
             v[i] = x[i];
-    } else if (rc == SY_ESINGULAR) {
-        rc = SY_OK;
-    } else {
-        return rc;
-    }
     size_t imax = 0;
     for (size_t i = 1; i < n; i++)
         if (cabs(v[i]) > cabs(v[imax]))
@@ -218,8 +262,8 @@ static int independent(const double complex *a, const double complex *b, size_t 
 
 /* Polish candidate lambda (scaled variable) and keep it if inside and new. */
 static int add_candidate(const syi_nep *p, const syi_ellipse *c, double rho, const syi_nep_settings *st,
-                         double complex lam, double complex *vv, double complex *xx, syi_nep_eig *eig,
-                         size_t max_eig, syi_nep_result *res, sy_error *err)
+                         double complex lam, double complex *vv, const double complex *bb,
+                         double complex *xx, syi_nep_eig *eig, size_t max_eig, syi_nep_result *res, sy_error *err)
 {
     double complex w0 = c->centre + rho * lam;
     if (!syi_ellipse_inside(c, w0, -0.05)) /* spurious (outside): skip; 5 % slack before polishing */
@@ -227,9 +271,19 @@ static int add_candidate(const syi_nep *p, const syi_ellipse *c, double rho, con
     if (res->n_found >= max_eig)
         return sy_error_set(err, SY_ENOCONV, "contour: more than %zu eigenvalues", max_eig);
     syi_nep_eig *o = &eig[res->n_found];
-    int rc = polish(p, st, w0, vv, xx, o, &res->evaluations, err);
+    /* A multiple eigenvalue of a symmetric layout comes out of the moments as a cluster
+     * (split by the quadrature error): start at the member already polished, where the
+     * Newton step of this one (its residue isolated by bb) is at once small. */
+    for (size_t q = 0; bb != NULL && q < res->n_found; q++)
+        if (eig[q].converged && cabs(eig[q].omega - w0) <= CLUSTER_REL * cabs(w0)) {
+            w0 = eig[q].omega;
+            break;
+        }
+    int rc = polish(p, st, w0, vv, bb, xx, o, &res->evaluations, err);
     if (rc != SY_OK || !syi_ellipse_inside(c, o->omega, INSIDE_MARGIN))
         return rc;
+    if (p->n > 0 && !o->converged && o->residual > NOT_AN_EIGENVALUE)
+        return SY_OK; /* the polish found no eigenvalue near this estimate: spurious */
     /* The same eigenvalue twice: within DEDUP_REL, or within DEDUP_LOOSE when one of the two
      * polishes stalled (T's noise reached before the secant converged). */
     for (size_t q = 0; q < res->n_found; q++) {
@@ -249,6 +303,13 @@ static int add_candidate(const syi_nep *p, const syi_ellipse *c, double rho, con
     if (syi_ellipse_radius(c, o->omega) > NEAR_EDGE)
         res->near_edge = 1;
     res->n_found++;
+    if (o->multiplicity == 2 && p->n == 0) { /* a double zero: two entries, as the count has it */
+        if (res->n_found >= max_eig)
+            return sy_error_set(err, SY_ENOCONV, "contour: more than %zu eigenvalues", max_eig);
+        eig[res->n_found].omega = o->omega, eig[res->n_found].residual = o->residual;
+        eig[res->n_found].converged = o->converged, eig[res->n_found].multiplicity = 2;
+        res->n_found++;
+    }
     return SY_OK;
 }
 
@@ -337,6 +398,22 @@ static int beyn(pstate *s, const syi_ellipse *c, double rho, double wsum, const 
         rc = sy_error_set(err, SY_ENOCONV, "contour: small eigenproblem failed (%d)", (int)info);
         goto done;
     }
+    /* Residue rows: H0 = (U0 S)(S^-1 Sigma0 W0^H), so with x_e = U0 s_e (first n rows) the
+     * residue of T^-1 V at eigenvalue e is x_e r_e, r_e = row e of S^-1 Sigma0 W0^H (first l
+     * columns: the block of A_0). */
+    double complex *R = malloc(k * l * sizeof *R + 1), *Sc = malloc(k * k * sizeof *Sc + 1);
+    double complex *cc = malloc(l * l * sizeof *cc + 1), *bb = malloc(n * sizeof *bb + 1);
+    lapack_int *piv = malloc(k * sizeof *piv + 1);
+    size_t *near = malloc(k * sizeof *near + 1);
+    int have_res = R && Sc && cc && bb && piv && near;
+    if (have_res) {
+        memcpy(Sc, S, k * k * sizeof *Sc);
+        for (size_t a = 0; a < k; a++)
+            for (size_t j = 0; j < l; j++)
+                R[j * k + a] = sv[a] * Wt[j * kl + a];
+        have_res = LAPACKE_zgesv(LAPACK_COL_MAJOR, (lapack_int)k, (lapack_int)l, Sc, (lapack_int)k, piv, R,
+                                 (lapack_int)k) == 0;
+    }
     for (size_t e = 0; e < k && rc == SY_OK; e++) {
         /* Eigenvector: first n rows of U0 s. */
         for (size_t i = 0; i < n; i++) {
@@ -348,8 +425,49 @@ static int beyn(pstate *s, const syi_ellipse *c, double rho, double wsum, const 
         double nv = vnorm(vv, n);
         for (size_t i = 0; i < n; i++)
             vv[i] /= nv;
-        rc = add_candidate(p, c, rho, st, lam[e], vv, xx, eig, max_eig, res, err);
+        /* c with r_e c = 1 / nv and r_j c = 0 for the nearest others (at most l rows,
+         * minimum norm): T^-1 V c then has residue vv at lambda_e and none at those. */
+        int use_b = have_res;
+        if (use_b) {
+            size_t m = 0;
+            near[m++] = e;
+            for (size_t j = 0; j < k; j++)
+                if (j != e)
+                    near[m++] = j;
+            for (size_t a = 1; a < m; a++) /* nearest first (insertion sort) */
+                for (size_t q = a; q > 1 && cabs(lam[near[q]] - lam[e]) < cabs(lam[near[q - 1]] - lam[e]); q--) {
+                    size_t tmp = near[q];
+                    near[q] = near[q - 1], near[q - 1] = tmp;
+                }
+            if (m > l)
+                m = l;
+            for (size_t a = 0; a < m; a++)
+                for (size_t j = 0; j < l; j++)
+                    cc[j * m + a] = R[j * k + near[a]];
+            for (size_t j = 0; j < l; j++)
+                bb[j] = j == 0 ? 1.0 / nv : 0.0;
+            /* minimum-norm solution of the m x l system (m <= l), right-hand side in bb */
+            use_b = LAPACKE_zgels(LAPACK_COL_MAJOR, 'N', (lapack_int)m, (lapack_int)l, 1, cc, (lapack_int)m, bb,
+                                  (lapack_int)(l > m ? l : m)) == 0;
+            if (use_b) {
+                for (size_t j = 0; j < l; j++)
+                    xx[j] = bb[j];
+                for (size_t i = 0; i < n; i++) {
+                    double complex acc = 0;
+                    for (size_t j = 0; j < l; j++)
+                        acc += s->V[j * n + i] * xx[j];
+                    bb[i] = acc;
+                }
+            }
+        }
+        rc = add_candidate(p, c, rho, st, lam[e], vv, use_b ? bb : NULL, xx, eig, max_eig, res, err);
     }
+    free(R);
+    free(Sc);
+    free(cc);
+    free(bb);
+    free(piv);
+    free(near);
     res->consistent = res->consistent && res->n_found == k;
 done:
     free(H0);
@@ -433,10 +551,10 @@ static int delves_lyness(pstate *s, const syi_ellipse *c, double rho, size_t N, 
             break;
         }
         size_t before = res->n_found;
-        for (size_t e = 0; e < m && rc == SY_OK; e++) {
+        for (size_t e = 0; e < m && rc == SY_OK && res->n_found < nc; e++) {
             if (cabs(be[e]) == 0)
                 continue;
-            rc = add_candidate(s->p, c, rho, st, al[e] / be[e], NULL, NULL, eig, max_eig, res, err);
+            rc = add_candidate(s->p, c, rho, st, al[e] / be[e], NULL, NULL, NULL, eig, max_eig, res, err);
         }
         if (res->n_found == before)
             break; /* no progress */

@@ -15,16 +15,18 @@
  *   A_p = (1 / 2 pi i) oint u^p T(z)^-1 V dz,  u = (z - c) / rho,  p = 0 .. 2K-1
  * by the trapezoid rule on an ellipse (exponentially convergent for analytic integrands;
  * the scaled variable u keeps the block Hankel matrices well conditioned), SVD of the block
- * Hankel matrix, a small eigenproblem for the eigenvalues; then each is polished by a secant
- * iteration on the analytic scalar g(omega) = 1 / (v^T T(omega)^-1 v) (zero at the
- * eigenvalue; v fixed during the iteration).
+ * Hankel matrix, a small eigenproblem for the eigenvalues and the residues of T^-1 V; then
+ * each is polished on the analytic scalar g(omega) = 1 / (v^H T(omega)^-1 V c) with c
+ * chosen so that the residue is v at this eigenvalue and 0 at its neighbours: g' = 1 there,
+ * so the first step is Newton's from one evaluation, then a secant (contour.c, polish()).
  * Determinant-only problems: Delves & Lyness (1967), "A numerical method for locating the
  * zeros of an analytic function", Math. Comp. 21: power sums
  *   s_p = (1 / 2 pi i) oint u^p f'(z) / f(z) dz = sum over zeros u_k^p,
  * from the unwrapped log f along the contour (its periodic part differentiated spectrally),
  * the zeros as eigenvalues of the Hankel pencil (s_{i+j+1}, s_{i+j}) (the moment form of
  * Kravanja & Van Barel, "Computing the zeros of analytic functions", LNM 1727, 2000), then a
- * secant polish on f, with deflation of the zeros already found when two converge to one.
+ * secant polish on f (on f^(1/2) for a double zero, recognised by the secant's linear
+ * rate), with deflation of the zeros already found when two converge to one.
  *
  * Counting (argument principle): the winding of det T along the contour is zeros minus poles
  * of det T inside; with the pole function p, zeros of T inside = winding(det T) + winding(p)
@@ -83,6 +85,8 @@ typedef struct syi_nep_eig {
     double complex *v;      /* n: eigenvector, largest entry 1 (caller storage; unused for n = 0) */
     double residual;        /* |v| / |T^-1 v| relative to the scale of T (n = 0: |polish step| / |omega|) */
     int converged;          /* 1 if the polish met polish_tol */
+    int multiplicity;       /* determinant-only problems: 2 for a double zero (polished on
+                               f^(1/2)), else 1; listed as two entries of eig */
 } syi_nep_eig;
 
 typedef struct syi_nep_result {

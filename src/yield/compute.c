@@ -74,8 +74,18 @@ typedef struct ctx {
     size_t nb;
     double *pband;                  /* [nb] mechanical power of the bin being stored inside each band, W */
     double limit_v;                 /* motion variance at the stroke limit for the bin being solved */
+    sy_yield_progress progress;     /* may be NULL; units in yield.h */
+    void *progress_ctx;
+    size_t done, total;
     sy_error *err;
 } ctx;
+
+static void advance(ctx *c, size_t units)
+{
+    c->done += units;
+    if (c->progress != NULL)
+        c->progress(c->progress_ctx, c->done, c->total);
+}
 
 static double electrical(const sy_model *m, double mech) { return fmin(m->efficiency * mech, m->rated_power); }
 
@@ -458,6 +468,7 @@ static int strategy_per_sea_state(ctx *c, sy_yield_result *r)
         memcpy(c->gp + g * nd, c->pdev, nd * sizeof *c->pdev);
         memcpy(gv + g * nd, c->vdev, nd * sizeof *c->vdev);
         group_iso(c, g, bopt[g], gi + g * nd);
+        advance(c, 1);
     }
     for (size_t k = 0; rc == SY_OK && k < s->n; k++) {
         size_t g = s->group[k];
@@ -489,6 +500,7 @@ static int strategy_per_sea_state(ctx *c, sy_yield_result *r)
         for (size_t j = 0; j < c->nb; j++)
             c->pband[j] = s->hs2[k] * group_band(c, g, j, NULL, b);
         store_bin(c, r, SY_TUNING_PER_SEA_STATE, k, iso, b, limited);
+        advance(c, 1);
     }
     free(iso);
     free(bopt);
@@ -505,6 +517,7 @@ static int strategy_site(ctx *c, sy_yield_result *r)
     double bref = reference_damping(c, c->seas->group[kmax]), x;
     scalar_fn energy = {site_energy_fn, c};
     int rc = maximise(&energy, log(bref / B_RANGE), log(bref * B_RANGE), &x, c->err);
+    advance(c, c->seas->n_groups);
     double *iso = malloc(c->nd * sizeof *iso);
     if (rc == SY_OK && iso == NULL)
         rc = sy_error_set(c->err, SY_ENOMEM, "site tuning");
@@ -727,9 +740,17 @@ int sy_yield_compute_banded(sy_yield_result **out, const sy_model *m, const sy_c
                             const sy_hydro_db *db, const sy_hydro_db *const *iso_db, const double *bands,
                             size_t n_bands, sy_error *err)
 {
+    return sy_yield_compute_progress(out, m, climate, db, iso_db, bands, n_bands, NULL, NULL, err);
+}
+
+int sy_yield_compute_progress(sy_yield_result **out, const sy_model *m, const sy_climate_table *climate,
+                              const sy_hydro_db *db, const sy_hydro_db *const *iso_db, const double *bands,
+                              size_t n_bands, sy_yield_progress progress, void *progress_ctx, sy_error *err)
+{
     ctx c;
     memset(&c, 0, sizeof c);
     c.m = m, c.db = db, c.err = err, c.bands = bands, c.nb = n_bands;
+    c.progress = progress, c.progress_ctx = progress_ctx;
     double pband_store[SY_YIELD_MAX_BANDS];
     c.pband = pband_store;
     if (n_bands > SY_YIELD_MAX_BANDS)
@@ -739,6 +760,8 @@ int sy_yield_compute_banded(sy_yield_result **out, const sy_model *m, const sy_c
     syi_yield_seas *seas = NULL;
     int rc = syi_yield_seas_create(&seas, m, climate, db->omega, db->n_omega, db->headings, db->n_headings, err);
     c.seas = seas;
+    if (rc == SY_OK) /* per-sea-state searches and bins, then the site-wide search */
+        c.total = 2 * seas->n_groups + seas->n;
     if (rc == SY_OK && seas->n == 0)
         rc = sy_error_set(err, SY_EINPUT, "climate %s: no bin has non-zero occurrence", m->climate);
     if (rc == SY_OK)

@@ -71,12 +71,16 @@ int main(void)
      * angular truncation assumes, plan.c; 1 for the propagating mode). */
     double complex *beta_v = malloc(nu * sizeof *beta_v), *alpha = malloc(nu * sizeof *alpha);
     srand(12345);
-    for (size_t u = 0; u < nu; u++) {
+    for (size_t u = 0; u < nu; u++) { /* two statements: the order of the draws is then the
+                                         same for every compiler (within one expression C
+                                         leaves it unspecified; clang and GCC differ) */
         size_t bj, qj;
         long nj;
         sy_array_plan_unknown(plan, u, &bj, &qj, &nj);
         double bound = exp(plan->lsend[(bj * Q + qj) * (M + 1) + (size_t)labs(nj)]);
-        beta_v[u] = bound * ((rand() / (double)RAND_MAX - 0.5) + I * (rand() / (double)RAND_MAX - 0.5));
+        double im = rand() / (double)RAND_MAX - 0.5;
+        double re = rand() / (double)RAND_MAX - 0.5;
+        beta_v[u] = bound * (re + I * im);
     }
     /* alpha = T~ beta from the module's translation blocks */
     double complex *blk = malloc(plan->nn * plan->nn * sizeof *blk);

@@ -42,7 +42,7 @@ static const float DIR[N] = {10, 350, 10, 10, 10, 400, 180, 15};
 
 static int make(const char *path, const spec *s)
 {
-    int nc, dt, dst, v, st = nc_create(path, NC_NETCDF4 | NC_CLOBBER, &nc);
+    int nc, dt = -1, dst = -1, v, st = nc_create(path, NC_NETCDF4 | NC_CLOBBER, &nc);
     if (st)
         return st;
 #define TRY(x) do { if (!st) st = (x); } while (0)

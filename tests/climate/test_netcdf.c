@@ -148,7 +148,7 @@ static int e_no_bounds_att(int nc) { return del_att(nc, "hs", "bounds"); }
 static int e_no_std(int nc) { return del_att(nc, "period", "standard_name"); }
 static int e_swap_dims(int nc)
 {
-    int st = nc_redef(nc), dh, dp, v;
+    int st = nc_redef(nc), dh = -1, dp = -1, v;
     if (!st) st = rename_var(nc, "occurrence", "occurrence_old");
     if (!st) st = nc_inq_dimid(nc, "hs", &dh);
     if (!st) st = nc_inq_dimid(nc, "period", &dp);
@@ -159,7 +159,7 @@ static int e_swap_dims(int nc)
 }
 static int e_bounds_three(int nc)
 {
-    int st = nc_redef(nc), dh, d3, v;
+    int st = nc_redef(nc), dh = -1, d3 = -1, v;
     if (!st) st = rename_var(nc, "hs_bounds", "hs_bounds_old");
     if (!st) st = nc_inq_dimid(nc, "hs", &dh);
     if (!st) st = nc_def_dim(nc, "three", 3, &d3);

@@ -10,7 +10,14 @@
  *    scipy 1.10), output pasted below;
  *  - the argument-principle count equals the number found, no pole twice;
  *  - the mode is per body and symmetric in size for the mirror-symmetric pair (both
- *    bodies amplitude 1). */
+ *    bodies amplitude 1);
+ *  - four columns at the corners of a square (radius 5 m, side 14 m, orders -12..12): the
+ *    square's symmetry group has a two-dimensional representation, so det(I - D T) has
+ *    double zeros (a symmetric system's determinant factorises by representations, each
+ *    factor raised to the representation's dimension: group-theory reduction); the one at
+ *    1.3558 - 0.2330i is compared with tests/poles/ref_four_columns.py (the same
+ *    independent system, secant on f^(1/2), winding 2 on a small circle), output pasted
+ *    below, and must be listed twice, polished, with count = found. */
 #include "check.h"
 #include "float_model.h"
 #include "swellyield/swellyield.h"
@@ -57,6 +64,32 @@ int main(void)
                                "two columns: both bodies amplitude 1 (mirror symmetry), got %.8f and %.8f",
                                cabs(ps->poles[at].mode[0]), cabs(ps->poles[at].mode[1]));
         }
+    }
+    sy_pole_set_free(ps);
+    ps = NULL;
+    double sx[4] = {0, 14, 0, 14}, sy[4] = {0, 0, 14, 14};
+    sy_model_device dev4[4];
+    sy_test_float_model(&m, dev4, 4, sx, sy, omega, 2, NULL, 0);
+    m.shape = SY_SHAPE_COLUMN;
+    m.orders = 12, m.depth_modes = 1;
+    m.tolerance = 1e-9;
+    m.has_resonance = 1, m.res_re_min = 1.0, m.res_re_max = 1.4, m.res_im_depth = 0.3;
+    /* ref_four_columns.py: k = 0.181839300526570-0.064401526942350i,
+       omega = 1.355776628895154-0.232995228377780i, winding 2.000 */
+    const double complex dbl = 1.355776628895154 - 0.232995228377780 * I;
+    if (sy_check_ok(sy_poles_find(&ps, &m, SY_POLES_SCATTERING, &err), &err, "square: poles")) {
+        sy_check_true(ps->count[SY_POLE_SCATTERING] == (int)ps->found[SY_POLE_SCATTERING],
+                      "square: argument-principle count %d = found %zu", ps->count[SY_POLE_SCATTERING],
+                      ps->found[SY_POLE_SCATTERING]);
+        size_t hits = 0, polished = 0;
+        for (size_t i = 0; i < ps->n; i++) {
+            /* 1e-9 as for the pair: a double zero polished on f^(1/2) converges like a simple one */
+            if (cabs(ps->poles[i].omega - dbl) <= 1e-9 * cabs(dbl))
+                hits++, polished += (size_t)ps->poles[i].converged;
+        }
+        sy_check_true(hits == 2, "square: double zero %.12f%+.12fi listed twice (got %zu)", creal(dbl), cimag(dbl),
+                      hits);
+        sy_check_true(polished == 2, "square: double zero polished (%zu of 2)", polished);
     }
     sy_pole_set_free(ps);
     return sy_check_summary();
