@@ -64,7 +64,8 @@ typedef struct sy_array_settings {
                             is dropped (its estimate K_0(k_q gap)/K_0(k_q a) < tolerance)
                             and below which an evanescent mode's angular orders are
                             dropped per body (every omitted Graf coupling coefficient
-                            |K_{n-m}(k_q L)| I_m(k_q a_i) / K_n(k_q a_j) < tolerance over
+                            |K_{n-m}(k_q L)| I_m(k_q a_i) / K_n(k_q a_j), weighted by a
+                            bound on the sending partial wave's size, < tolerance over
                             all real frequencies; src/array/plan.c) */
     size_t n_order;      /* M: angular orders -M..M kept per body in the propagating mode,
                             the most any evanescent mode keeps */

@@ -37,6 +37,9 @@ struct sy_array_plan {
     size_t *ord;               /* per body and depth mode (i Q + q): M_iq, orders -M_iq..M_iq
                                   kept (meaningful for q < nq[i]; M_i0 = M) */
     size_t *blk_off;           /* per body and depth mode (i Q + q): unknown of order -M_iq */
+    double *lsend;             /* per body, depth mode and order ((i Q + q) (M+1) + |n|): log of
+                                  the bound B^i_{qn} <= 1 on the scaled outgoing amplitude
+                                  (plan.c, "sending bound"); 0 where not sharpened */
     size_t *unk_off;           /* per body, length N + 1 */
     size_t n_unknowns;
     size_t n_full;             /* unknowns with 2M+1 orders in every kept depth mode */

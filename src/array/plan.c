@@ -18,19 +18,43 @@
  * scaled basis), about body i; its incident component of order m has the size
  *   C^{ij}_q(m, n) = |K_{n-m}(kq L)| I_m(kq a_i) / K_n(kq a_j)
  * on body i's surface. Orders are kept in +-pairs and K_p grows with p, so the largest
- * over the signs is at |n - m| = |m| + |n|. Dropping order m of mode q on body i omits
- * row m (body i receives) and column m (body i sends) of its couplings, so M_iq is the
- * largest |m| with C^{ij}_q(m, n) >= tol or C^{ji}_q(n, m) >= tol for some neighbour j
- * coupled in mode q and some |n| <= M: every omitted coupling coefficient is below the
- * tolerance (the same measure as the per-pair cut-off, now per order). The coefficients
- * fall with the order like (a / (L - a))^m in the Laplace limit kq L -> 0 and faster
- * (times e^{-kq (L - a_i - a_j)}) for larger kq, so higher modes need fewer orders.
- * The bound is taken over the whole interval of the real root, kq h in
- * ((q - 1/2) pi, q pi) (SAMPLES points: not monotone in kq for close bodies), i.e. over
- * all real frequencies: the plan (matrix size, unknowns) does not depend on omega, and
+ * over the signs is at |n - m| = |m| + |n|. That partial wave of body j has at most the
+ * size B^j_{qn} <= 1 (sending bound, below), so body i receives at most C B. Dropping
+ * order m of mode q on body i omits row m (body i receives) and column m (body i sends)
+ * of its couplings, so M_iq is the largest |m| with C^{ij}_q(m, n) B^j_{qn} >= tol or
+ * C^{ji}_q(n, m) B^i_{qm} >= tol for some neighbour j coupled in mode q and some
+ * |n| <= M: every omitted incident wave is below the tolerance (the same measure as the
+ * per-pair cut-off, now per order). The coefficients fall with the order like
+ * (a / (L - a))^m in the Laplace limit kq L -> 0 and faster (times
+ * e^{-kq (L - a_i - a_j)}) for larger kq, so higher modes need fewer orders. C is
+ * bounded over the whole interval of the real root, kq h in ((q - 1/2) pi, q pi)
+ * (SAMPLES points: not monotone in kq for close bodies), i.e. over all real
+ * frequencies: the plan (matrix size, unknowns) does not depend on omega, and
  * log det(I - D T) stays one analytic function of omega for the resonance search, which
  * uses the same truncation off the axis. Values are carried as logarithms (high orders
- * at small kq a overflow double). */
+ * at small kq a overflow double).
+ *
+ * Sending bound B^i_{qn} (evanescent q >= 1): the scaled outgoing amplitude of body i in
+ * (q, n). An axisymmetric body scatters order n only into order n (D block diagonal in
+ * n, body.h), so beta_{qn} = sum_q' D~_n(q, q') alpha_{q'n} + radiation, and
+ *   B^i_{qn} = min(1, max over frequency samples of
+ *              sum_q' |D~_n(q, q')| A^i_{q'n} + R^i_{qn}),
+ * with the incident bounds A: the ambient wave (|a_{0n}| = 1 in units of its potential
+ * amplitude g / omega, Jacobi-Anger; scaled 1 / |H_n(k0 a_i)|) plus, for every mode, what
+ * all other bodies' outgoing partial waves of unit scaled size bring (sum over the
+ * neighbours coupled in that mode of max_p |T~_q[n, p]|, i.e. the unweighted rule's
+ * assumption one step earlier: B <= 1 makes it consistent); and R the body's own
+ * radiated partial wave (q, n) relative to the largest scaled partial wave of the same
+ * rigid-body dof (non-zero for |n| <= 1 only). What the rule sharpens: an evanescent
+ * order n >= 2 is only excited by incident order-n content (propagating incident order
+ * n is small until k0 a ~ n, and the float converts it to evanescent modes weakly:
+ * |D~_n(q, 0)| falls like the incident wave at the float's bottom, e^{-k0 d}), and a
+ * float spanning the top d of the depth scatters evanescent modes weakly
+ * (|D~_n(q, q')| ~ 1e-2..1e-5, against I_n K_n ~ 1/(2n) for a full-depth column).
+ * Frequency samples: WSAMPLES values of k0, geometric from K0A_LOW / a_max (the static
+ * limit: the scaled D~ and T~ no longer change) to 2 ln(1/tol) / d_min (the incident
+ * wave at the float's bottom below tol^2), body solves at each (a few ms per body type).
+ * A failed sample solve keeps B = 1 (the unweighted rule) for every body. */
 #include "array_impl.h"
 
 #include "swellyield/special.h"
@@ -71,6 +95,10 @@ static double k0_ratio(double xp, double x)
 /* kq samples per evanescent mode for the per-mode orders (endpoints of the interval of
  * the real root and three points between; see the file comment). */
 #define SAMPLES 5
+/* Frequency samples of the sending bound, k0 from K0A_LOW / a (the static limit: scaled
+ * D~ and T~ no longer change below it) to 2 ln(1/tol) / d (file comment). */
+#define WSAMPLES 16
+#define K0A_LOW 0.05
 
 /* log K_n(x), n = 0..nmax, real x > 0: upward recurrence of the ratio K_n / K_{n-1}
  * (K_{n+1} = K_{n-1} + (2n/x) K_n, stable for K). Returns 0, or -1 if K_0, K_1 fail. */
@@ -117,13 +145,15 @@ static void raise(long *x, size_t v)
 }
 
 /* Orders needed by the pair (i, j) in evanescent mode q (file comment): need_i, need_j
- * raised to the largest order of each body with a coupling coefficient >= tol (left as
- * they are when none is). On a failed Bessel evaluation every order is kept. */
+ * raised to the largest order of each body with a weighted coupling coefficient
+ * C B >= tol (left as they are when none is). On a failed Bessel evaluation every order
+ * is kept. */
 static void pair_orders(const sy_array_plan *p, size_t i, size_t j, size_t q, long *need_i, long *need_j)
 {
-    const size_t M = p->M;
+    const size_t M = p->M, Q = p->Q;
     const double L = p->pair_L[i * p->n_bodies + j], ltol = log(p->set.tolerance);
     const double ai = p->types[p->bodies[i].type].geom.radius, aj = p->types[p->bodies[j].type].geom.radius;
+    const double *bi = &p->lsend[(i * Q + q) * (M + 1)], *bj = &p->lsend[(j * Q + q) * (M + 1)];
     double lkl[2 * SY_ARRAY_MAX_ORDER + 1], lii[SY_ARRAY_MAX_ORDER + 1], lij[SY_ARRAY_MAX_ORDER + 1];
     double lki[SY_ARRAY_MAX_ORDER + 1], lkj[SY_ARRAY_MAX_ORDER + 1];
     for (int s = 0; s < SAMPLES; s++) {
@@ -135,17 +165,193 @@ static void pair_orders(const sy_array_plan *p, size_t i, size_t j, size_t q, lo
         }
         for (size_t m = 0; m <= M; m++)
             for (size_t n = 0; n <= M; n++) {
-                /* body i receives m from n of body j, and body j receives m from n of i */
-                if (lkl[m + n] + lii[m] - lkj[n] >= ltol) {
+                /* body i receives m from n of body j (sent with amplitude <= B^j_{qn}),
+                 * and body j receives m from n of i */
+                if (lkl[m + n] + lii[m] - lkj[n] + bj[n] >= ltol) {
                     raise(need_i, m);
                     raise(need_j, n);
                 }
-                if (lkl[m + n] + lij[m] - lki[n] >= ltol) {
+                if (lkl[m + n] + lij[m] - lki[n] + bi[n] >= ltol) {
                     raise(need_j, m);
                     raise(need_i, n);
                 }
             }
     }
+}
+
+/* log(e^a + e^b), either may be -inf. */
+static double log_add(double a, double b)
+{
+    if (a == -INFINITY)
+        return b;
+    if (b == -INFINITY)
+        return a;
+    double hi = fmax(a, b);
+    return hi + log(exp(a - hi) + exp(b - hi));
+}
+
+/* log |H_n(x)|, n = 0..nmax, real x > 0. Returns 0, or -1 on failure or overflow. */
+static int log_hankel(size_t nmax, double x, double *out)
+{
+    double complex h[2 * SY_ARRAY_MAX_ORDER + 1];
+    if (sy_special_hankel1_array((int)nmax, x, h, NULL) != SY_OK)
+        return -1;
+    for (size_t n = 0; n <= nmax; n++) {
+        double v = cabs(h[n]);
+        if (!(v > 0.0) || !isfinite(v))
+            return -1;
+        out[n] = log(v);
+    }
+    return 0;
+}
+
+/* Incident bounds at body i from every other body at one frequency sample, added to
+ * la[q (M+1) + n] (log, scaled basis): each neighbour's outgoing partial waves of unit
+ * scaled size, re-expanded by Graf's theorem, |T~_q[n, p]| largest at |n| + |p|. ls:
+ * log scales per type, mode, order at this sample; kq: wavenumbers. */
+static int incident_bounds(const sy_array_plan *p, size_t i, const double *ls, const double *kq, double *la)
+{
+    const size_t N = p->n_bodies, Q = p->Q, M = p->M;
+    const size_t ti = p->bodies[i].type;
+    double lf[2 * SY_ARRAY_MAX_ORDER + 1];
+    for (size_t j = 0; j < N; j++) {
+        if (j == i)
+            continue;
+        const size_t tj = p->bodies[j].type;
+        const double L = p->pair_L[i * N + j];
+        for (size_t q = 0; q < p->pair_nq[i * N + j]; q++) {
+            if (q == 0 ? log_hankel(2 * M, kq[0] * L, lf) : log_besselk(2 * M, kq[q] * L, lf))
+                return -1;
+            const double *si = &ls[(ti * Q + q) * (M + 1)], *sj = &ls[(tj * Q + q) * (M + 1)];
+            for (size_t n = 0; n <= M; n++) {
+                double most = -INFINITY;
+                for (size_t k = 0; k <= M; k++)
+                    most = fmax(most, lf[n + k] - si[n] - sj[k]);
+                la[q * (M + 1) + n] = log_add(la[q * (M + 1) + n], most);
+            }
+        }
+    }
+    return 0;
+}
+
+/* Sending bounds lsend (file comment) at the WSAMPLES frequencies; bodies of a type whose
+ * sample solve fails keep B = 1 (the unweighted rule). */
+static int send_bounds(sy_array_plan *p, sy_error *err)
+{
+    const size_t N = p->n_bodies, Q = p->Q, M = p->M, T = p->n_types, nw = M + 1;
+    for (size_t u = 0; u < N * Q * nw; u++)
+        p->lsend[u] = 0.0;
+    double amax = 0.0, dmin = INFINITY;
+    for (size_t t = 0; t < T; t++) {
+        amax = fmax(amax, p->types[t].geom.radius);
+        if (p->types[t].geom.kind == SY_BODY_FLOAT)
+            dmin = fmin(dmin, p->types[t].geom.draft);
+    }
+    if (p->full_orders || Q < 2 || !isfinite(dmin))
+        return SY_OK;
+    double *lb = malloc(N * Q * nw * sizeof *lb), *ls = malloc(T * Q * nw * sizeof *ls);
+    double *la = malloc(Q * nw * sizeof *la), *kq = malloc(Q * sizeof *kq);
+    double complex *roots_k = malloc((p->n_roots + 1) * sizeof *roots_k);
+    sy_body_work **bw = calloc(T, sizeof *bw);
+    sy_body_waves **bv = calloc(T, sizeof *bv);
+    int *ok = malloc(T * sizeof *ok);
+    int rc = lb && ls && la && kq && roots_k && bw && bv && ok ? SY_OK
+                                                               : sy_error_set(err, SY_ENOMEM, "array plan sending bounds");
+    for (size_t t = 0; rc == SY_OK && t < T; t++) {
+        rc = sy_body_work_alloc(&bw[t], p->bplan[t], err);
+        if (rc == SY_OK)
+            rc = sy_body_waves_alloc(&bv[t], M, Q, err);
+        ok[t] = 1;
+    }
+    for (size_t u = 0; rc == SY_OK && u < N * Q * nw; u++)
+        lb[u] = -INFINITY;
+    const double klo = K0A_LOW / amax, khi = 2.0 * log(1.0 / p->set.tolerance) / dmin;
+    for (int s = 0; rc == SY_OK && s < WSAMPLES; s++) {
+        double k0 = klo * pow(khi / klo, (double)s / (WSAMPLES - 1));
+        double omega = sqrt(p->set.g * k0 * tanh(k0 * p->set.h));
+        sy_wave_roots roots = {0};
+        roots.k = roots_k;
+        if (sy_waves_roots_fill(&roots, omega, p->set.h, p->set.g, p->n_roots, NULL) != SY_OK)
+            break;   /* keep B = 1 everywhere */
+        kq[0] = creal(roots.k0);
+        for (size_t q = 1; q < Q; q++)
+            kq[q] = creal(roots.k[q - 1]);
+        for (size_t t = 0; t < T; t++) {
+            double a = p->types[t].geom.radius;
+            if (ok[t] && sy_body_solve(p->bplan[t], &roots, p->set.rho, bw[t], bv[t], NULL) != SY_OK)
+                ok[t] = 0;
+            for (size_t q = 0; ok[t] && q < Q; q++)
+                if (q == 0 ? log_hankel(M, kq[0] * a, &ls[(t * Q) * nw])
+                           : log_besselk(M, kq[q] * a, &ls[(t * Q + q) * nw]))
+                    ok[t] = 0;
+        }
+        /* the incident bounds read every type's scales: one failure stops them all */
+        int all = 1;
+        for (size_t t = 0; t < T; t++)
+            all &= ok[t];
+        for (size_t t = 0; t < T; t++)
+            ok[t] = all;
+        for (size_t i = 0; i < N; i++) {
+            const size_t t = p->bodies[i].type;
+            if (!ok[t])
+                continue;
+            /* ambient wave: |a_{0n}| = 1 (Jacobi-Anger), scaled 1 / |H_n(k0 a)| */
+            for (size_t u = 0; u < Q * nw; u++)
+                la[u] = u < nw ? -ls[(t * Q) * nw + u] : -INFINITY;
+            if (incident_bounds(p, i, ls, kq, la)) {
+                ok[t] = 0;
+                continue;
+            }
+            const double complex *D = bv[t]->diffraction, *R = bv[t]->radiation;
+            const sy_array_type *ty = &p->types[t];
+            for (size_t q = 1; q < p->nq[i]; q++)
+                for (size_t n = 0; n <= M; n++) {
+                    /* B = sum_q' |D~_n(q, q')| A_{q'n},  D~ = s_q D s_q' */
+                    double b = -INFINITY;
+                    for (size_t qp = 0; qp < p->nq[i]; qp++) {
+                        double d = cabs(D[(n * Q + q) * Q + qp]);
+                        if (d > 0.0)
+                            b = log_add(b, log(d) + ls[(t * Q + q) * nw + n] + ls[(t * Q + qp) * nw + n] +
+                                               la[qp * nw + n]);
+                    }
+                    /* radiation columns: the radiated wave relative to the largest scaled
+                     * partial wave of the same dof (|n| <= 1 for rigid modes) */
+                    for (int j = 0; ty->geom.kind == SY_BODY_FLOAT && j < SY_BODY_NMODES; j++) {
+                        const double complex *Rj = &R[(size_t)j * Q * (2 * M + 1)];
+                        double r = cabs(Rj[q * (2 * M + 1) + M + n]);
+                        if (!(ty->modes & (1u << j)) || r == 0.0)
+                            continue;
+                        double top = -INFINITY;
+                        for (size_t qp = 0; qp < Q; qp++)
+                            for (size_t k = 0; k <= M; k++)
+                                if (Rj[qp * (2 * M + 1) + M + k] != 0.0)
+                                    top = fmax(top, log(cabs(Rj[qp * (2 * M + 1) + M + k])) +
+                                                        ls[(t * Q + qp) * nw + k]);
+                        b = fmax(b, log(r) + ls[(t * Q + q) * nw + n] - top);
+                    }
+                    double *x = &lb[(i * Q + q) * nw + n];
+                    *x = fmax(*x, b);
+                }
+        }
+        if (s == WSAMPLES - 1)
+            for (size_t i = 0; i < N; i++)
+                for (size_t q = 1; ok[p->bodies[i].type] && q < p->nq[i]; q++)
+                    for (size_t n = 0; n <= M; n++)
+                        p->lsend[(i * Q + q) * nw + n] = fmin(0.0, lb[(i * Q + q) * nw + n]);
+    }
+    for (size_t t = 0; bw != NULL && bv != NULL && t < T; t++) {
+        sy_body_work_free(bw[t]);
+        sy_body_waves_free(bv[t]);
+    }
+    free(bw);
+    free(bv);
+    free(ok);
+    free(lb);
+    free(ls);
+    free(la);
+    free(kq);
+    free(roots_k);
+    return rc;
 }
 
 /* M_iq for every body and kept evanescent mode, and the offsets of the unknowns. */
@@ -234,7 +440,6 @@ static int layout(sy_array_plan *p, sy_error *err)
         if (t->geom.kind == SY_BODY_FLOAT)
             p->n_rad += nd;
     }
-    mode_orders(p);
     p->n_dof = p->dof_off[N];
     p->n_rhs = p->n_headings + p->n_rad;
     p->dof_body = malloc((p->n_dof + 1) * sizeof *p->dof_body);
@@ -321,11 +526,12 @@ int syi_array_plan_create(sy_array_plan **out, const sy_array_settings *settings
     p->nq = calloc(N, sizeof *p->nq);
     p->ord = calloc(N * p->Q, sizeof *p->ord);
     p->blk_off = calloc(N * p->Q, sizeof *p->blk_off);
+    p->lsend = calloc(N * p->Q * (p->M + 1), sizeof *p->lsend);
     p->unk_off = calloc(N + 1, sizeof *p->unk_off);
     p->dof_off = calloc(N + 1, sizeof *p->dof_off);
     if (p->types == NULL || p->bodies == NULL || p->headings == NULL || p->bplan == NULL ||
         p->pair_L == NULL || p->pair_alpha == NULL || p->pair_nq == NULL || p->nq == NULL ||
-        p->ord == NULL || p->blk_off == NULL ||
+        p->ord == NULL || p->blk_off == NULL || p->lsend == NULL ||
         p->unk_off == NULL || p->dof_off == NULL) {
         sy_array_plan_free(p);
         return sy_error_set(err, SY_ENOMEM, "array plan for %zu bodies", N);
@@ -350,6 +556,12 @@ int syi_array_plan_create(sy_array_plan **out, const sy_array_settings *settings
     }
     if (p->n_roots < p->Q - 1)
         p->n_roots = p->Q - 1;
+    rc = send_bounds(p, err);
+    if (rc != SY_OK) {
+        sy_array_plan_free(p);
+        return rc;
+    }
+    mode_orders(p);
     *out = p;
     return SY_OK;
 }
@@ -371,6 +583,7 @@ void sy_array_plan_free(sy_array_plan *p)
     free(p->nq);
     free(p->ord);
     free(p->blk_off);
+    free(p->lsend);
     free(p->unk_off);
     free(p->dof_off);
     free(p->dof_body);

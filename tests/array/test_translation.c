@@ -66,16 +66,21 @@ int main(void)
     }
     const size_t N = plan->n_bodies, nu = plan->n_unknowns;
     sy_check_true(plan->nq[0] == Q, "all %zu depth modes couple to body 0 (got %zu)", Q, plan->nq[0]);
-    /* Random scaled outgoing coefficients beta (|beta| <= 1: each partial wave at most
-     * unit size on its own body's surface), fixed seed. */
+    /* Random scaled outgoing coefficients beta, fixed seed, each partial wave at most the
+     * plan's sending bound B^j_{qn} <= 1 (its size on its own body's surface that the
+     * angular truncation assumes, plan.c; 1 for the propagating mode). */
     double complex *beta_v = malloc(nu * sizeof *beta_v), *alpha = malloc(nu * sizeof *alpha);
     srand(12345);
     for (size_t u = 0; u < nu; u++) { /* two statements: the order of the draws is then the
                                          same for every compiler (within one expression C
                                          leaves it unspecified; clang and GCC differ) */
+        size_t bj, qj;
+        long nj;
+        sy_array_plan_unknown(plan, u, &bj, &qj, &nj);
+        double bound = exp(plan->lsend[(bj * Q + qj) * (M + 1) + (size_t)labs(nj)]);
         double im = rand() / (double)RAND_MAX - 0.5;
         double re = rand() / (double)RAND_MAX - 0.5;
-        beta_v[u] = re + I * im;
+        beta_v[u] = bound * (re + I * im);
     }
     /* alpha = T~ beta from the module's translation blocks */
     double complex *blk = malloc(plan->nn * plan->nn * sizeof *blk);
