@@ -56,7 +56,9 @@ typedef struct sy_error {
 SY_API const char *sy_status_text(int code);
 
 /* Record code and a printf-style message in err (err may be NULL); returns code so
- * callers can write `return sy_error_set(err, SY_EINPUT, "...", ...)`. */
+ * callers can write `return sy_error_set(err, SY_EINPUT, "...", ...)`. The message is
+ * kept one line: control bytes echoed from input (newlines in a quoted CSV field...)
+ * become '?' (also in sy_error_prefix). */
 SY_API int sy_error_set(sy_error *err, int code, const char *fmt, ...) SY_PRINTF(3, 4);
 
 /* Prepend caller context: "context: old message". Keeps the code. NULL-safe. */

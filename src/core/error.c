@@ -16,6 +16,16 @@ const char *sy_status_text(int code)
     return "unknown status";
 }
 
+/* A message is one line of text whatever the input echoed into it (a quoted CSV field
+ * may hold newlines, a file any control byte): control bytes become '?'. UTF-8 (bytes
+ * >= 0x80) passes through. */
+static void one_line(char *s)
+{
+    for (; *s != '\0'; s++)
+        if ((unsigned char)*s < 0x20 || *s == 0x7f)
+            *s = '?';
+}
+
 int sy_error_set(sy_error *err, int code, const char *fmt, ...)
 {
     if (err != NULL) {
@@ -24,6 +34,7 @@ int sy_error_set(sy_error *err, int code, const char *fmt, ...)
         err->code = code;
         vsnprintf(err->msg, sizeof err->msg, fmt, ap);
         va_end(ap);
+        one_line(err->msg);
     }
     return code;
 }
@@ -43,6 +54,7 @@ void sy_error_prefix(sy_error *err, const char *fmt, ...)
         snprintf(joined, sizeof joined, "%s", head);
     /* Keep the head of the message when it is too long: the context is what matters. */
     snprintf(err->msg, sizeof err->msg, "%.*s", (int)(sizeof err->msg - 1), joined);
+    one_line(err->msg);
 }
 
 void sy_error_clear(sy_error *err)

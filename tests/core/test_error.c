@@ -17,5 +17,14 @@ int main(void)
     sy_check_true(strcmp(sy_status_text(-7), "unknown status") == 0, "unknown status text");
     sy_error_clear(&err);
     sy_check_true(err.code == SY_OK && err.msg[0] == '\0', "clear");
+    /* One line whatever is echoed (a layout CSV's quoted header field held newlines and
+     * control bytes; found by fuzz_layout, fuzz/corpus/fuzz_layout/newline-in-header). */
+    sy_error_set(&err, SY_EINPUT, "layout.csv:3: unknown column '%s'", "\003name\nA0,\v\r\x7f");
+    sy_check_true(strcmp(err.msg, "layout.csv:3: unknown column '?name?A0,\?\?\?'") == 0, "control bytes become '?': %s",
+                  err.msg);
+    sy_error_prefix(&err, "%s", "p.ini\nline");
+    sy_check_true(strchr(err.msg, '\n') == NULL && strncmp(err.msg, "p.ini?line: ", 12) == 0, "prefix kept on one line");
+    sy_error_set(&err, SY_EINPUT, "%s", "h\xc3\xb6he");
+    sy_check_true(strcmp(err.msg, "h\xc3\xb6he") == 0, "UTF-8 passes through");
     return sy_check_summary();
 }
