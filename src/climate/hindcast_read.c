@@ -403,12 +403,12 @@ int sy_climate_series_read(sy_climate_series **out, const char *path,
     s->depth = NAN;
     set_name(s->file, sizeof s->file, path);
     reader r = {-1, path, err, 0};
-    int st = nc_open(path, NC_NOWRITE, &r.ncid);
-    if (st != NC_NOERR) {
+    int rc = syi_nc_open(path, &r.ncid, err);
+    if (rc != SY_OK) {
         free(s);
-        return sy_error_set(err, SY_EIO, "%s: cannot open as NetCDF: %s", path, nc_strerror(st));
+        return rc;
     }
-    int rc = read_series(&r, s, period, want_direction != 0);
+    rc = read_series(&r, s, period, want_direction != 0);
     nc_close(r.ncid);
     if (rc != SY_OK) {
         sy_climate_series_free(s);

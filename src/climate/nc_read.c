@@ -392,11 +392,10 @@ int sy_climate_table_read(sy_climate_table **out, const char *path, sy_error *er
     int rc0 = syi_check_input_file(path, SIZE_MAX, err); /* missing, a directory, ... */
     if (rc0 != SY_OK)
         return rc0;
-    int st = nc_open(path, NC_NOWRITE, &r.ncid);
-    if (st != NC_NOERR)
-        return sy_error_set(err, SY_EIO, "%s: cannot open as NetCDF: %s", path,
-                            nc_strerror(st));
-    int rc = read_contents(&r, out);
+    int rc = syi_nc_open(path, &r.ncid, err);
+    if (rc != SY_OK)
+        return rc;
+    rc = read_contents(&r, out);
     nc_close(r.ncid);
     return rc;
 }

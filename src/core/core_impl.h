@@ -14,6 +14,11 @@
  * (missing, a directory, unreadable, larger than max_bytes). */
 int syi_check_input_file(const char *path, size_t max_bytes, sy_error *err);
 
+/* nc_open(path, NC_NOWRITE) after a probe of the header in a forked child, so that a
+ * damaged file that crashes the NetCDF library gives SY_EIO naming path instead of a
+ * crash (ncopen.c). SY_EIO with the library's reason when it refuses the file. */
+int syi_nc_open(const char *path, int *ncid, sy_error *err);
+
 /* One CSV record: its fields (NUL-terminated, surrounding blanks trimmed) and the
  * 1-based line of the file where it starts. */
 typedef struct syi_csv_row {

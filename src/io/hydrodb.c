@@ -176,7 +176,10 @@ int sy_hydro_db_read(sy_hydro_db **out, const char *path, sy_error *err)
     sy_hydro_db *db = NULL;
     double *buf = NULL;
     size_t no, nh, nd, nb, nd2;
-    SYI_NC(nc_open(path, NC_NOWRITE, &nc), "open");
+    if ((rc = syi_nc_open(path, &nc, err)) != SY_OK) {
+        nc = -1;
+        goto fail;
+    }
     SYI_NC(dim_len(nc, "omega", &no), "dimension omega");
     SYI_NC(dim_len(nc, "heading", &nh), "dimension heading");
     SYI_NC(dim_len(nc, "dof", &nd), "dimension dof");

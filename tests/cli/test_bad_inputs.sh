@@ -294,6 +294,10 @@ sea_nc "no occurrence variable" "n_occdims.nc: variable 'occurrence'" n_occdims.
 sea_nc "mismatched dimension sizes" "n_mism.nc: variable 'hs_bounds'" n_mism.nc
 sea_nc "truncated file" "n_trunc.nc" n_trunc.nc
 sea_nc "text file named .nc" "n_text.nc" n_text.nc
+# A damaged classic header on which NetCDF-C 4.9.0 itself crashes inside nc_open (found by
+# fuzz_climate_nc; the header is probed in a child process, src/core/ncopen.c).
+cp "$src/fuzz/corpus/fuzz_climate_nc/header-crash-netcdf-c" "$d/n_crash.nc"
+sea_nc "header that crashes the NetCDF library" "n_crash.nc: cannot open as NetCDF: the NetCDF library failed reading its header" n_crash.nc
 sea_nc "10^8 x 10^8 bins declared in a tiny file" "n_huge.nc: dimensions hs x period x direction = 100000000 x 100000000 x 0 declare 1e+16 bins, above the limit of 10000000 (SY_CLIMATE_MAX_CELLS" n_huge.nc
 : >"$d/n_empty.nc"
 sea_nc "empty file" "n_empty.nc" n_empty.nc

@@ -98,7 +98,7 @@ int main(int argc, char **argv)
     sy_check_true(count_entries(dir) == 1, "only the earlier file remains in the folder (no temporary)");
     /* A file that is not NetCDF. */
     const char *junk = sy_test_write(dir, "junk.nc", "this is not netcdf\n");
-    sy_check_fails(sy_hydro_db_read(&back, junk, &err), SY_EIO, &err, "junk.nc: open",
+    sy_check_fails(sy_hydro_db_read(&back, junk, &err), SY_EIO, &err, "junk.nc: cannot open as NetCDF",
                    "a text file given as a database");
     sy_hydro_db_free(db);
     sy_test_rmtree(dir);
