@@ -85,6 +85,12 @@ typedef struct sy_pole_set {
     double ax, ay;
 } sy_pole_set;
 
+/* 1 if poles[i] repeats an earlier pole of the same kind in set (a multiple pole is
+ * listed once per independent mode shape): same omega within 1e-6 relative, above the
+ * polish accuracy (1e-8 or better) and far below any distinct resonances' spacing that
+ * a band (width 4 gamma) or a picture could resolve. */
+SY_API int sy_pole_repeats(const sy_pole_set *set, size_t i);
+
 /* Search the model's [resonance] region for the families in `kinds`. The layout, PTO and
  * truncation are the model's. SY_EINPUT if the model has no [resonance] region,
  * SY_ENOCONV if the contour capacity was too small (message says what to change). */

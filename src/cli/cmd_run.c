@@ -14,10 +14,6 @@
 #include <string.h>
 #include <unistd.h>
 
-/* Poles closer than this (relative) are one multiple pole: above the polish accuracy
- * (1e-8 or better), and their bands (width 4 gamma) would coincide anyway. */
-#define SAME_POLE 1e-6
-
 static const char *help =
     "usage: swellyield run [PROJECT.ini] [-o DIR] [--jobs N] [--quiet]\n"
     "Estimates the energy yield of the project's array at its site and writes into DIR\n"
@@ -152,13 +148,8 @@ int sy_cmd_run(int argc, char **argv)
             for (size_t i = 0; i < ps->n && nb < SY_YIELD_MAX_BANDS; i++) {
                 const sy_pole *p = &ps->poles[i];
                 double a = fmax(lo, p->omega_r - 2 * p->gamma), b = fmin(hi, p->omega_r + 2 * p->gamma);
-                if (p->kind == SY_POLE_SCATTERING || !(p->q > m->q_threshold) || !(a < b))
-                    continue;
-                /* A multiple pole is listed once per mode shape; its band is one band. */
-                int again = 0;
-                for (size_t k = 0; k < nb && !again; k++)
-                    again = cabs(bands[k].pole - p->omega) <= SAME_POLE * cabs(p->omega);
-                if (again)
+                /* a multiple pole is listed once per mode shape; its band is one band */
+                if (p->kind == SY_POLE_SCATTERING || !(p->q > m->q_threshold) || !(a < b) || sy_pole_repeats(ps, i))
                     continue;
                 bands[nb] = (sy_flagged_band){a, b, p->omega, p->q, (int)p->kind};
                 edges[2 * nb] = a, edges[2 * nb + 1] = b;

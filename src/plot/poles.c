@@ -5,7 +5,6 @@
  * rectangle. A multiple pole (listed once per mode shape) is one dot. */
 #include "plot_impl.h"
 
-#include <complex.h>
 #include <math.h>
 #include <plplot.h>
 #include <stdio.h>
@@ -48,14 +47,13 @@ int syi_plot_poles(const char *dir, const char *ext, const sy_model *m, const sy
     size_t distinct = 0;
     for (size_t i = 0; i < p->n; i++) {
         const sy_pole *q = &p->poles[i];
-        int again = 0, below = 0;
-        for (size_t k = 0; k < i && !again; k++) {
+        if (sy_pole_repeats(p, i))
+            continue;
+        int below = 0;
+        for (size_t k = 0; k < i; k++) {
             const sy_pole *o = &p->poles[k];
-            again = o->kind == q->kind && cabs(o->omega - q->omega) <= 1e-6 * cabs(q->omega);
             below |= fabs(o->omega_r - q->omega_r) < 0.08 * (x1 - x0) && fabs(o->gamma - q->gamma) < 0.08 * (y1 - y0);
         }
-        if (again)
-            continue;
         distinct++;
         double size = 0.8 + 1.6 * fmin(1.0, fmax(0.0, log10(fmax(q->q, 1.0)) / 2.0));
         PLFLT px[1] = {q->omega_r}, py[1] = {-q->gamma};

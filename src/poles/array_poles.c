@@ -33,6 +33,15 @@ const char *sy_pole_kind_name(sy_pole_kind k)
     return (unsigned)k < 3 ? names[k] : "?";
 }
 
+int sy_pole_repeats(const sy_pole_set *set, size_t i)
+{
+    const sy_pole *q = &set->poles[i];
+    for (size_t k = 0; k < i; k++)
+        if (set->poles[k].kind == q->kind && cabs(set->poles[k].omega - q->omega) <= 1e-6 * cabs(q->omega))
+            return 1;
+    return 0;
+}
+
 /* One array evaluation per distinct omega, shared by every problem of the search. */
 typedef struct shared {
     const sy_array_plan *plan;

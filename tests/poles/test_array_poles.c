@@ -272,9 +272,27 @@ static size_t pair(double L, double complex *w, const double complex *guess)
     return nf;
 }
 
+/* sy_pole_repeats: a double pole listed twice (same kind, omega equal to 1e-9) repeats;
+ * the same omega of another kind, and a pole 1e-4 away, do not. */
+static void repeats(void)
+{
+    sy_pole p[4] = {{0}};
+    p[0].omega = p[1].omega = p[2].omega = 1.2 - 0.05 * I;
+    p[1].omega += 1e-9;
+    p[3].omega = 1.2001 - 0.05 * I;
+    p[0].kind = p[1].kind = p[3].kind = SY_POLE_MOTION;
+    p[2].kind = SY_POLE_SCATTERING;
+    sy_pole_set set = {0};
+    set.n = 4, set.poles = p;
+    sy_check_true(!sy_pole_repeats(&set, 0) && sy_pole_repeats(&set, 1) && !sy_pole_repeats(&set, 2) &&
+                      !sy_pole_repeats(&set, 3),
+                  "multiple pole: only the second listing of the same kind repeats");
+}
+
 int main(void)
 {
     sy_init();
+    repeats();
     undamped();
     one_float();
     double complex prev[2], cur[2];
