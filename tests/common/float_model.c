@@ -1,6 +1,8 @@
 /* Test helper: a model of floats built in code (see float_model.h). */
 #include "float_model.h"
 
+#include "swellyield/hydro.h"
+
 #include <math.h>
 #include <stdio.h>
 #include <string.h>
@@ -29,4 +31,14 @@ void sy_test_pto_damping(sy_model *m, double b)
     m->pto_damping = b;
     for (size_t i = 0; i < m->n_devices; i++)
         m->devices[i].pto_damping = b;
+}
+
+void sy_test_pole_model(sy_model *m, sy_model_device *dev, size_t n, const double *x, double bpto)
+{
+    static double omega[2] = {0.4, 2.4}; /* the truncation is chosen for this band */
+    sy_test_float_model(m, dev, n, x, NULL, omega, 2, NULL, 0);
+    sy_test_pto_damping(m, bpto);
+    m->has_resonance = 1, m->res_re_min = 0.4, m->res_re_max = 2.4, m->res_im_depth = 0.8;
+    m->tolerance = 1e-9;
+    sy_hydro_truncation(m, dev, n, &m->orders, &m->depth_modes);
 }

@@ -16,4 +16,10 @@ void sy_test_float_model(sy_model *m, sy_model_device *dev, size_t n, const doub
 /* Set every device's PTO damping and the model default to b (N s/m). */
 void sy_test_pto_damping(sy_model *m, double b);
 
+/* The poles tests' model: sy_test_float_model on the band 0.4..2.4 rad/s (no headings),
+ * PTO damping bpto, [resonance] region 0.4..2.4 x -0.8, and the truncation
+ * sy_poles_find uses (tolerance 1e-9, automatic orders), so that an impedance evaluated
+ * by a test is the same analytic function as the search's. */
+void sy_test_pole_model(sy_model *m, sy_model_device *dev, size_t n, const double *x, double bpto);
+
 #endif

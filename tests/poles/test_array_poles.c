@@ -29,17 +29,6 @@
 #define G 9.81
 #define DRAFT 4.0
 
-static void model(sy_model *m, sy_model_device *dev, size_t n, const double *x, double bpto)
-{
-    static double omega[2] = {0.4, 2.4}; /* the truncation is chosen for this band */
-    sy_test_float_model(m, dev, n, x, NULL, omega, 2, NULL, 0);
-    sy_test_pto_damping(m, bpto);
-    m->has_resonance = 1, m->res_re_min = 0.4, m->res_re_max = 2.4, m->res_im_depth = 0.8;
-    /* The truncation sy_poles_find uses (the run's orders, body solves to 1e-9), so that
-     * the impedance evaluated here is the same analytic function as the search's. */
-    m->tolerance = 1e-9;
-    sy_hydro_truncation(m, dev, n, &m->orders, &m->depth_modes);
-}
 
 /* Generic-solver callback on the assembled impedance (or K0 - omega^2 M without the water
  * when no_water is set). n <= 4. */
@@ -115,7 +104,7 @@ static void undamped(void)
     double x = 0;
     sy_model m;
     sy_model_device dev;
-    model(&m, &dev, 1, &x, 0);
+    sy_test_pole_model(&m, &dev, 1, &x, 0);
     sy_error err = SY_ERROR_INIT;
     imp_ctx c = {NULL, 1};
     if (!sy_check_ok(syi_imp_create(&c.imp, &m, 0, &err), &err, "undamped: impedance"))
@@ -158,7 +147,7 @@ static void one_float(void)
     double x = 0;
     sy_model m;
     sy_model_device dev;
-    model(&m, &dev, 1, &x, 5e4);
+    sy_test_pole_model(&m, &dev, 1, &x, 5e4);
     sy_error err = SY_ERROR_INIT;
     sy_pole_set *ps = NULL;
     syi_imp *imp = NULL;
@@ -232,7 +221,7 @@ static size_t pair(double L, double complex *w, const double complex *guess)
     double x[2] = {0, L};
     sy_model m;
     sy_model_device dev[2];
-    model(&m, dev, 2, x, 5e4);
+    sy_test_pole_model(&m, dev, 2, x, 5e4);
     sy_error err = SY_ERROR_INIT;
     imp_ctx c = {NULL, 0};
     size_t nf = 0;

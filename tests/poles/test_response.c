@@ -31,17 +31,6 @@
 #define RHO 1025.0
 #define G 9.81
 
-static void model(sy_model *m, sy_model_device *dev, size_t n, const double *x, double bpto)
-{
-    static double omega[2] = {0.4, 2.4}; /* the truncation is chosen for this band */
-    sy_test_float_model(m, dev, n, x, NULL, omega, 2, NULL, 0);
-    sy_test_pto_damping(m, bpto);
-    m->has_resonance = 1, m->res_re_min = 0.4, m->res_re_max = 2.4, m->res_im_depth = 0.8;
-    /* The truncation sy_poles_find uses (the run's orders, body solves to 1e-9), so that
-     * the impedance evaluated here is the same analytic function as the search's. */
-    m->tolerance = 1e-9;
-    sy_hydro_truncation(m, dev, n, &m->orders, &m->depth_modes);
-}
 
 /* Largest |pole sum - direct| of dof d over t in [t0, t1). */
 static double window_error(const sy_response *r, size_t d, double t0, double t1)
@@ -88,7 +77,7 @@ static void one_float(void)
     double x = 0;
     sy_model m;
     sy_model_device dev;
-    model(&m, &dev, 1, &x, 5e4);
+    sy_test_pole_model(&m, &dev, 1, &x, 5e4);
     sy_error err = SY_ERROR_INIT;
     sy_pole_set *ps = NULL;
     sy_response *r = NULL;
@@ -219,7 +208,7 @@ static void pair(void)
     double x[2] = {0, 30};
     sy_model m;
     sy_model_device dev[2];
-    model(&m, dev, 2, x, 5e4);
+    sy_test_pole_model(&m, dev, 2, x, 5e4);
     sy_error err = SY_ERROR_INIT;
     pair_ctx c = {NULL};
     sy_response *r = NULL;
@@ -270,7 +259,7 @@ static void bad_settings(void)
     double x = 0;
     sy_model m;
     sy_model_device dev;
-    model(&m, &dev, 1, &x, 5e4);
+    sy_test_pole_model(&m, &dev, 1, &x, 5e4);
     sy_pole_set ps = {0};
     for (size_t i = 0; i < sizeof bad / sizeof bad[0]; i++) {
         sy_error err = SY_ERROR_INIT;
