@@ -9,7 +9,8 @@
 static int parse_count(const char *s, size_t *n)
 {
     double v;
-    if (!syi_parse_double(s, &v) || v < 1 || v != (double)(size_t)v || v > 1e12)
+    /* range first: casting a double beyond size_t is undefined (fuzz_project found 4.8e67) */
+    if (!syi_parse_double(s, &v) || !(v >= 1 && v <= 1e12) || v != (double)(size_t)v)
         return 0;
     *n = (size_t)v;
     return 1;
