@@ -70,11 +70,14 @@ struct sy_array_work {
     int *pivots;                      /* n_u (lapack_int) */
     /* right-hand sides column after column: element u of column c at [c n_u + u];
      * columns: headings, then radiating dofs (plan->rad_dof) */
-    double complex *inc;              /* direct incident alpha, then total incident */
+    double complex *inc;              /* direct incident alpha (the total is not formed) */
     double complex *sol;              /* right-hand sides D~ inc, then beta */
     double complex *fn;               /* 2M + 2 Bessel values */
     double complex *blk;              /* (2M+1)^2: one translation block */
     double complex *force;            /* n_dof x n_rhs */
+    double complex *gt;               /* n_dof x n_u row-major: G~^i T~^{ij} for the body i
+                                         of each dof (zero in its own columns), the force
+                                         per unit scattered amplitude of the other bodies */
     int factored;                     /* mat holds a valid LU */
     double complex omega;             /* of the last factorisation */
 };

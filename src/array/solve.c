@@ -1,9 +1,11 @@
 /* Array solve at one frequency (real or complex): roots, isolated-body characteristics
  * per body type, the translation matrix T~ (Graf's addition theorem, array.h), the
  * interaction matrix I - D~ T~ (one LU, LAPACKE zgetrf row-major), all right-hand sides
- * at once (headings, then every radiating dof), then
- *   total incident alpha = direct incident + T~ beta   (zgemm per pair block),
- *   forces F = G~ alpha,   X = F (headings),   Z = Z_iso - F (radiation columns).
+ * at once (headings, then every radiating dof), then the forces on the total incident
+ * field alpha = direct incident + T~ beta,
+ *   F = G~ alpha = G~ alpha_direct + (G~ T~) beta   (one zgemm, n_dof x n_u x n_rhs:
+ *   the total field itself, n_u x n_u x n_rhs, is never formed),
+ *   X = F (headings),   Z = Z_iso - F (radiation columns).
  * Scaled basis and index maps (each body and depth mode with its own orders
  * -M_iq..M_iq, chosen by the plan): array_impl.h. Incident wave of unit amplitude about the
  * centre c_i of body i (Jacobi-Anger): a_{0n} = -(i g / omega) P_i i^n e^{-i n beta},
@@ -37,8 +39,9 @@ int sy_array_work_alloc(sy_array_work **out, const sy_array_plan *plan, sy_error
         w->sol = malloc(nu * nr * sizeof *w->sol);
         w->fn = malloc((2 * M + 2) * sizeof *w->fn);
         w->force = malloc((plan->n_dof + 1) * nr * sizeof *w->force);
+        w->gt = malloc((plan->n_dof + 1) * nu * sizeof *w->gt);
         ok = w->roots_k && w->bwork && w->bwaves && w->scale && w->pairfn && w->blk && w->mat && w->pivots &&
-             w->inc && w->sol && w->fn && w->force;
+             w->inc && w->sol && w->fn && w->force && w->gt;
     }
     if (!ok) {
         sy_array_work_free(w);
@@ -78,6 +81,7 @@ void sy_array_work_free(sy_array_work *w)
     free(w->sol);
     free(w->fn);
     free(w->force);
+    free(w->gt);
     free(w);
 }
 
@@ -267,6 +271,8 @@ static void assemble(const sy_array_plan *plan, sy_array_work *w, int radiation)
     memset(w->mat, 0, nu * nu * sizeof *w->mat);
     for (size_t u = 0; u < nu; u++)
         w->mat[u * nu + u] = 1.0;
+    if (radiation)
+        memset(w->gt, 0, plan->n_dof * nu * sizeof *w->gt);
     for (size_t i = 0; i < N; i++) {
         size_t ti = plan->bodies[i].type, nqi = plan->nq[i];
         for (size_t j = 0; j < N; j++) {
@@ -291,7 +297,21 @@ static void assemble(const sy_array_plan *plan, sy_array_work *w, int radiation)
                             out[c] -= cmul(d, b[c]);
                     }
                 }
-                if (!radiation || plan->types[tj].geom.kind != SY_BODY_FLOAT)
+                if (!radiation)
+                    continue;
+                for (size_t d = plan->dof_off[i]; d < plan->dof_off[i + 1]; d++) {
+                    const double complex *G = &w->bwaves[ti]->force[((size_t)(plan->dof_mode[d] - 1) * Q + qp) * nn];
+                    double complex *out = &w->gt[d * nu + col0];
+                    for (long m = -Mi; m <= Mi; m++) {
+                        double complex g = G[m + Ml] * syi_array_scale(plan, w, ti, qp, m);
+                        if (g == 0.0)
+                            continue;
+                        const double complex *b = &w->blk[(size_t)(m + Mi) * nc];
+                        for (size_t c = 0; c < nc; c++)
+                            out[c] += cmul(g, b[c]);
+                    }
+                }
+                if (plan->types[tj].geom.kind != SY_BODY_FLOAT)
                     continue;
                 for (size_t r = plan->rad_first[j]; r < plan->rad_first[j + 1]; r++) {
                     int mode = plan->dof_mode[plan->rad_dof[r]];
@@ -308,29 +328,6 @@ static void assemble(const sy_array_plan *plan, sy_array_work *w, int radiation)
             }
         }
     }
-}
-
-/* inc += T~ sol (total incident = direct + translated scattered), block by block: one
- * zgemm per (pair, depth mode) over all right-hand sides, which are stored column after
- * column (inc[c n_u + u], a column-major n_u x n_rhs matrix); the row-major block read
- * column-major is its transpose, hence CblasTrans. */
-static void add_translated(const sy_array_plan *plan, sy_array_work *w)
-{
-    const size_t N = plan->n_bodies, nr = plan->n_rhs, nu = plan->n_unknowns;
-    const double complex one = 1.0;
-    for (size_t i = 0; i < N; i++)
-        for (size_t j = 0; j < N; j++) {
-            if (j == i)
-                continue;
-            for (size_t q = 0; q < plan->pair_nq[i * N + j]; q++) {
-                syi_array_block(plan, w, i, j, q, w->blk);
-                const long Mi = (long)syi_array_order(plan, i, q), Mj = (long)syi_array_order(plan, j, q);
-                const size_t nrow = (size_t)(2 * Mi + 1), nc = (size_t)(2 * Mj + 1);
-                size_t ri = syi_array_unknown(plan, i, q, -Mi), cj = syi_array_unknown(plan, j, q, -Mj);
-                cblas_zgemm(CblasColMajor, CblasTrans, CblasNoTrans, (int)nrow, (int)nr, (int)nc, &one,
-                            w->blk, (int)nc, &w->sol[cj], (int)nu, &one, &w->inc[ri], (int)nu);
-            }
-        }
 }
 
 static int factorise(const sy_array_plan *plan, sy_array_work *w, double complex omega, sy_error *err)
@@ -431,9 +428,9 @@ int sy_array_solve(const sy_array_plan *plan, double complex omega, sy_array_wor
                                          (lapack_int)nu, (const lapack_int *)w->pivots, w->sol, (lapack_int)nu);
         if (info != 0)
             return sy_error_set(err, SY_EINVAL, "array: zgetrs argument %d invalid", (int)-info);
-        add_translated(plan, w);
     }
-    /* forces F[d, c] = sum G~ alpha_total */
+    /* forces on the direct incident field, F[d, c] = sum G~ alpha_direct, then
+     * F += (G~ T~) beta below */
     for (size_t d = 0; d < nd; d++) {
         size_t i = plan->dof_body[d], t = plan->bodies[i].type;
         int mode = plan->dof_mode[d];
@@ -451,6 +448,13 @@ int sy_array_solve(const sy_array_plan *plan, double complex omega, sy_array_wor
                     f[c] += cmul(g, w->inc[c * nu + u]);
             }
         }
+    }
+    if (nd > 0 && nr > 0) {
+        /* force (row-major n_dof x n_rhs) += gt (row-major n_dof x n_u) sol (column-major
+         * n_u x n_rhs, i.e. the transpose of a row-major n_rhs x n_u) */
+        const double complex one = 1.0;
+        cblas_zgemm(CblasRowMajor, CblasNoTrans, CblasTrans, (int)nd, (int)nr, (int)nu, &one, w->gt, (int)nu,
+                    w->sol, (int)nu, &one, w->force, (int)nr);
     }
     (void)N;
     res->omega = omega;
