@@ -437,8 +437,10 @@ int sy_poles_find_progress(sy_pole_set **out, const sy_model *m, unsigned kinds,
                  * pole of Z and leaves found below the upper bound). Where found is short of
                  * the upper bound and the scattering zeros were searched too, the count
                  * reported is the exact one (coupled_zeros): a difference from found then
-                 * means a pole missed (near the contour), reported, not retried: splitting
-                 * a thin region does not recover it reliably (docs/benchmarks.md).
+                 * means a pole missed (near the contour; the contour's rescue pass already
+                 * retried stalled estimates from the poles next to them), reported, not
+                 * retried: splitting a thin region does not recover it reliably
+                 * (docs/benchmarks.md).
                  * Scattering: found equal to the count. */
                 int nf = (int)r[k].n_found;
                 consistent &= kind_of[k] == SY_POLE_SCATTERING ? nf == r[k].count

@@ -7,6 +7,7 @@
 
 #include <lapacke.h>
 #include <math.h>
+#include <stdint.h>
 #include <stdlib.h>
 #include <string.h>
 
@@ -17,6 +18,13 @@
  * eigenvalue (a stall at T's noise leaves ~1e-8): the estimate is dropped. */
 #define NOT_AN_EIGENVALUE 1e-4
 #define CLUSTER_REL 1e-4   /* contour estimates this close: a multiple eigenvalue, split by quadrature error */
+/* Near the contour the quadrature error can split a multiple eigenvalue's estimates far
+ * apart (0.1 rho seen for a double pole at normalised radius 0.93: the member whose
+ * estimate is off stalls in the polish). A stalled estimate is polished again from the
+ * nearest eigenvalue already found within RESCUE_REL rho (scaled variable), while the
+ * argument-principle count says one is missing; it is kept only if it converges there
+ * with an eigenvector independent of those found (add_candidate's test). */
+#define RESCUE_REL 0.25
 #define INSIDE_MARGIN 1e-9
 #define NOTHING_INSIDE 1e-9 /* moments this small relative to |T^-1 V| r: no eigenvalue inside */
 /* Phase tracking: a wrapped phase step above this between neighbouring points may hide a
@@ -260,10 +268,14 @@ static int independent(const double complex *a, const double complex *b, size_t 
     return cabs(s) < SAME_VECTOR * vnorm(a, n) * vnorm(b, n);
 }
 
-/* Polish candidate lambda (scaled variable) and keep it if inside and new. */
+/* Polish candidate lambda (scaled variable) and keep it if inside and new. With
+ * rescue != 0 (a second pass over estimates whose polish stalled, matrix problems) start
+ * at the nearest eigenvalue found within RESCUE_REL rho instead (none: skip). *stalled
+ * (may be NULL) is set when the polish found no eigenvalue near the estimate. */
 static int add_candidate(const syi_nep *p, const syi_ellipse *c, double rho, const syi_nep_settings *st,
                          double complex lam, double complex *vv, const double complex *bb,
-                         double complex *xx, syi_nep_eig *eig, size_t max_eig, syi_nep_result *res, sy_error *err)
+                         double complex *xx, syi_nep_eig *eig, size_t max_eig, syi_nep_result *res, int rescue,
+                         int *stalled, sy_error *err)
 {
     double complex w0 = c->centre + rho * lam;
     if (!syi_ellipse_inside(c, w0, -0.05)) /* spurious (outside): skip; 5 % slack before polishing */
@@ -274,16 +286,23 @@ static int add_candidate(const syi_nep *p, const syi_ellipse *c, double rho, con
     /* A multiple eigenvalue of a symmetric layout comes out of the moments as a cluster
      * (split by the quadrature error): start at the member already polished, where the
      * Newton step of this one (its residue isolated by bb) is at once small. */
+    double reach = rescue ? RESCUE_REL * rho : CLUSTER_REL * cabs(w0);
+    size_t start = SIZE_MAX;
     for (size_t q = 0; bb != NULL && q < res->n_found; q++)
-        if (eig[q].converged && cabs(eig[q].omega - w0) <= CLUSTER_REL * cabs(w0)) {
-            w0 = eig[q].omega;
-            break;
-        }
+        if (eig[q].converged && cabs(eig[q].omega - w0) <= reach)
+            reach = cabs(eig[q].omega - w0), start = q;
+    if (rescue && start == SIZE_MAX)
+        return SY_OK;
+    if (start != SIZE_MAX)
+        w0 = eig[start].omega;
     int rc = polish(p, st, w0, vv, bb, xx, o, &res->evaluations, err);
     if (rc != SY_OK || !syi_ellipse_inside(c, o->omega, INSIDE_MARGIN))
         return rc;
-    if (p->n > 0 && !o->converged && o->residual > NOT_AN_EIGENVALUE)
+    if (p->n > 0 && !o->converged && o->residual > NOT_AN_EIGENVALUE) {
+        if (stalled != NULL)
+            *stalled = 1;
         return SY_OK; /* the polish found no eigenvalue near this estimate: spurious */
+    }
     /* The same eigenvalue twice: within DEDUP_REL, or within DEDUP_LOOSE when one of the two
      * polishes stalled (T's noise reached before the secant converged). */
     for (size_t q = 0; q < res->n_found; q++) {
@@ -414,7 +433,17 @@ static int beyn(pstate *s, const syi_ellipse *c, double rho, double wsum, const 
         have_res = LAPACKE_zgesv(LAPACK_COL_MAJOR, (lapack_int)k, (lapack_int)l, Sc, (lapack_int)k, piv, R,
                                  (lapack_int)k) == 0;
     }
-    for (size_t e = 0; e < k && rc == SY_OK; e++) {
+    unsigned char *stall = calloc(k, 1);
+    if (stall == NULL) {
+        rc = sy_error_set(err, SY_ENOMEM, "contour candidates");
+        goto done;
+    }
+    /* pass 0: every estimate; pass 1: the stalled ones again (RESCUE_REL) */
+    for (size_t it = 0; it < 2 * k && rc == SY_OK; it++) {
+        size_t e = it % k;
+        int rescue = it >= k;
+        if (rescue && (!stall[e] || res->n_found >= (size_t)upper))
+            continue;
         /* Eigenvector: first n rows of U0 s. */
         for (size_t i = 0; i < n; i++) {
             double complex acc = 0;
@@ -460,8 +489,12 @@ static int beyn(pstate *s, const syi_ellipse *c, double rho, double wsum, const 
                 }
             }
         }
-        rc = add_candidate(p, c, rho, st, lam[e], vv, use_b ? bb : NULL, xx, eig, max_eig, res, err);
+        int stalled = 0;
+        rc = add_candidate(p, c, rho, st, lam[e], vv, use_b ? bb : NULL, xx, eig, max_eig, res, rescue && use_b,
+                           rescue ? NULL : &stalled, err);
+        stall[e] = (unsigned char)stalled;
     }
+    free(stall);
     free(R);
     free(Sc);
     free(cc);
@@ -554,7 +587,7 @@ static int delves_lyness(pstate *s, const syi_ellipse *c, double rho, size_t N, 
         for (size_t e = 0; e < m && rc == SY_OK && res->n_found < nc; e++) {
             if (cabs(be[e]) == 0)
                 continue;
-            rc = add_candidate(s->p, c, rho, st, al[e] / be[e], NULL, NULL, NULL, eig, max_eig, res, err);
+            rc = add_candidate(s->p, c, rho, st, al[e] / be[e], NULL, NULL, NULL, eig, max_eig, res, 0, NULL, err);
         }
         if (res->n_found == before)
             break; /* no progress */
