@@ -191,10 +191,13 @@ static syi_ellipse region_ellipse(double re_min, double re_max, double im_depth)
  * each outgoing partial wave measured at its body's radius) by inverse iteration at the
  * polished pole; body b's amplitude is the 2-norm of its coefficients, with the phase of
  * its axisymmetric propagating coefficient (q = 0, n = 0) when that carries at least
- * AXI_SHARE of the body's norm (else the phase of its largest coefficient); largest 1. */
+ * AXI_SHARE of the body's norm (else the phase of its largest coefficient); largest 1.
+ * against (may be NULL): the unit null vector of the first entry of a double zero; the
+ * iteration is kept orthogonal to it, so the second entry gets the other direction of
+ * the two-dimensional null space. vec: n_u, the unit null vector on return. */
 #define AXI_SHARE 1e-3
-static int scattering_mode(shared *s, double complex w, double complex *vec, double complex *mode, size_t n_bodies,
-                           sy_error *err)
+static int scattering_mode(shared *s, double complex w, double complex *vec, const double complex *against,
+                           double complex *mode, size_t n_bodies, sy_error *err)
 {
     size_t nu = sy_array_plan_n_unknowns(s->plan);
     int rc = need(s, w, 1, err);
@@ -211,6 +214,13 @@ static int scattering_mode(shared *s, double complex w, double complex *vec, dou
     }
     for (int it = 0; it < NULL_ITER && rc == SY_OK; it++) {
         rc = sy_array_interaction_solve(s->plan, s->work, vec, vec, err);
+        if (against != NULL) {
+            double complex c = 0;
+            for (size_t u = 0; u < nu; u++)
+                c += conj(against[u]) * vec[u];
+            for (size_t u = 0; u < nu; u++)
+                vec[u] -= c * against[u];
+        }
         double nv = 0;
         for (size_t u = 0; u < nu; u++)
             nv += creal(vec[u] * conj(vec[u]));
@@ -305,7 +315,7 @@ int sy_poles_find_progress(sy_pole_set **out, const sy_model *m, unsigned kinds,
     sy_hydro_db *db = NULL;
     sy_dyn_plan *dyn = NULL;
     sy_pole_set *set = calloc(1, sizeof *set);
-    double complex *vbuf = NULL, *nullv = NULL;
+    double complex *vbuf = NULL, *nullv = NULL, *firstv = NULL;
     motion_ctx mc[2] = {{0}, {0}};
     shared sh = {0};
     if (set == NULL) {
@@ -330,7 +340,8 @@ int sy_poles_find_progress(sy_pole_set **out, const sy_model *m, unsigned kinds,
         set->modes = calloc(MAX_POLES * (nd ? nd : 1), sizeof *set->modes);
         vbuf = malloc(3 * MAX_POLES * (nd + 1) * sizeof *vbuf);
         nullv = malloc((nu + 1) * sizeof *nullv);
-        if (!set->poles || !set->modes || !vbuf || !nullv)
+        firstv = malloc((nu + 1) * sizeof *firstv);
+        if (!set->poles || !set->modes || !vbuf || !nullv || !firstv)
             rc = sy_error_set(err, SY_ENOMEM, "pole search for %zu dofs", nd);
     }
     for (int k = 0; rc == SY_OK && k < 2; k++) {
@@ -460,10 +471,19 @@ int sy_poles_find_progress(sy_pole_set **out, const sy_model *m, unsigned kinds,
         rc = SY_OK;
         sy_error_clear(err);
     }
-    /* Scattering resonances: body-wise mode shapes from the null vectors. */
-    for (size_t i = 0; rc == SY_OK && i < set->n; i++)
-        if (set->poles[i].kind == SY_POLE_SCATTERING && nd == m->n_devices)
-            rc = scattering_mode(&sh, set->poles[i].omega, nullv, set->modes + i * nd, m->n_devices, err);
+    /* Scattering resonances: body-wise mode shapes from the null vectors; the two entries
+     * of a double zero (consecutive, add_poles) get two independent ones. */
+    double complex prev_w = NAN;
+    for (size_t i = 0; rc == SY_OK && i < set->n; i++) {
+        if (set->poles[i].kind != SY_POLE_SCATTERING || nd != m->n_devices)
+            continue;
+        double complex w = set->poles[i].omega;
+        int second = cabs(w - prev_w) <= SAME_POLE * cabs(w);
+        if (second)
+            memcpy(firstv, nullv, nu * sizeof *nullv);
+        rc = scattering_mode(&sh, w, nullv, second ? firstv : NULL, set->modes + i * nd, m->n_devices, err);
+        prev_w = second ? NAN : w;
+    }
     set->evaluations = sh.evaluations;
     int mode_rows = nd == m->n_devices; /* scattering modes are per body: stored when one dof per body */
     if (rc == SY_OK) {
@@ -495,6 +515,7 @@ int sy_poles_find_progress(sy_pole_set **out, const sy_model *m, unsigned kinds,
     }
     free(vbuf);
     free(nullv);
+    free(firstv);
     free(eigs);
     sy_dyn_plan_free(dyn);
     sy_hydro_db_free(db);

@@ -17,7 +17,8 @@
  *    factor raised to the representation's dimension: group-theory reduction); the one at
  *    1.3558 - 0.2330i is compared with tests/poles/ref_four_columns.py (the same
  *    independent system, secant on f^(1/2), winding 2 on a small circle), output pasted
- *    below, and must be listed twice, polished, with count = found. */
+ *    below, and must be listed twice, polished, with count = found and two independent
+ *    mode shapes. */
 #include "check.h"
 #include "float_model.h"
 #include "swellyield/swellyield.h"
@@ -81,15 +82,30 @@ int main(void)
         sy_check_true(ps->count[SY_POLE_SCATTERING] == (int)ps->found[SY_POLE_SCATTERING],
                       "square: argument-principle count %d = found %zu", ps->count[SY_POLE_SCATTERING],
                       ps->found[SY_POLE_SCATTERING]);
-        size_t hits = 0, polished = 0;
+        size_t hits = 0, polished = 0, at[2] = {0, 0};
         for (size_t i = 0; i < ps->n; i++) {
             /* 1e-9 as for the pair: a double zero polished on f^(1/2) converges like a simple one */
-            if (cabs(ps->poles[i].omega - dbl) <= 1e-9 * cabs(dbl))
+            if (cabs(ps->poles[i].omega - dbl) <= 1e-9 * cabs(dbl)) {
+                if (hits < 2)
+                    at[hits] = i;
                 hits++, polished += (size_t)ps->poles[i].converged;
+            }
         }
         sy_check_true(hits == 2, "square: double zero %.12f%+.12fi listed twice (got %zu)", creal(dbl), cimag(dbl),
                       hits);
         sy_check_true(polished == 2, "square: double zero polished (%zu of 2)", polished);
+        /* The two entries span the two-dimensional null space: their body-wise modes are
+         * independent (the square's two dipole-like patterns; |cos| < 0.9, the solver's
+         * own test of a new mode), not one mode twice. */
+        const double complex *a = ps->poles[at[0]].mode, *b = ps->poles[at[1]].mode;
+        if (hits == 2 && sy_check_true(a != NULL && b != NULL, "square: mode shapes present")) {
+            double complex c = 0;
+            double na = 0, nb = 0;
+            for (size_t d = 0; d < 4; d++)
+                c += conj(a[d]) * b[d], na += pow(cabs(a[d]), 2), nb += pow(cabs(b[d]), 2);
+            sy_check_true(cabs(c) < 0.9 * sqrt(na * nb), "square: the double zero's two modes independent, |cos| %.3f",
+                          cabs(c) / sqrt(na * nb));
+        }
     }
     sy_pole_set_free(ps);
     return sy_check_summary();
