@@ -90,6 +90,8 @@ typedef struct sy_pole_set {
  * polish accuracy (1e-8 or better) and far below any distinct resonances' spacing that
  * a band (width 4 gamma) or a picture could resolve. */
 SY_API int sy_pole_repeats(const sy_pole_set *set, size_t i);
+/* 1 if a and b are one (multiple) pole by that rule: same kind, omega within 1e-6. */
+SY_API int sy_pole_same(const sy_pole *a, const sy_pole *b);
 
 /* Search the model's [resonance] region for the families in `kinds`. The layout, PTO and
  * truncation are the model's. SY_EINPUT if the model has no [resonance] region,

@@ -13,10 +13,16 @@
  * Pole sum. Closing the inversion integral in the lower half plane (t > 0 for the decay,
  * t > tau for the pulse) picks up the residues of Z^-1 at the motion poles. For the
  * complex-symmetric Z (reciprocity) with Z(omega_p) v = 0, the residue is
- * v v^T / (v^T Z'(omega_p) v); Z' is taken by an 8-point Cauchy integral on a circle of
- * radius 0.02 |omega_p| (exact for polynomials of degree < 8; the float's truncation noise
- * in Z, about the model's tolerance, is amplified by 1/0.02). Each pole with Re > 0 comes
- * with its mirror -conj(omega_p), which contributes the complex conjugate:
+ * v v^T / (v^T Z'(omega_p) v), and at a multiple (semisimple) pole listed once per
+ * independent mode, V = [v_1 .. v_r], it is V (V^T Z' V)^-1 V^T (one term per distinct
+ * pole). Z' is taken by an 8-point Cauchy integral on a circle of radius 2e-3 |omega_p|,
+ * at most 1/4 of the distance to the nearest scattering pole in the set: Z itself has
+ * poles there (Z_rad = Z_iso - F), often within 0.01 rad/s of a motion pole, and a circle
+ * around one of them would spoil the residue. Z for the residues is the pole search's
+ * (body solves to 1e-9, so the small circle does not amplify truncation noise); checked
+ * against the contour integral of Z^-1 in tests/poles/test_array_poles.c. Each pole with
+ * Re > 0 comes with its mirror -conj(omega_p), which contributes the complex conjugate:
+ * (written for simple poles; R_p = V (V^T Z' V)^-1 V^T replaces v_p v_p^T / (v_p^T Z' v_p))
  *   decay:  x(t) = -2 Re sum_p v_p (v_p^T K0 x0) e^{-i omega_p t} / (omega_p v_p^T Z' v_p),
  *           K0 = Z(0) = C + K_pto (the holding force before release is K0 x0);
  *   pulse:  x(t) =  2 Re sum_p -i v_p (v_p^T e_b) F(omega_p) e^{-i omega_p t} / (v_p^T Z' v_p),
@@ -81,7 +87,8 @@ typedef struct sy_response {
     double *direct;     /* [j * n_dof + d] the same by direct Fourier inversion */
     int *dof_body, *dof_mode;  /* [n_dof] body index and mode (3 = heave) of each dof */
     size_t excited_dof; /* the dof released or pushed */
-    size_t n_poles;     /* motion poles used (Re omega_p > 0; mirrors implied) */
+    size_t n_poles;     /* distinct motion poles used (Re omega_p > 0; mirrors implied; a
+                           multiple pole, listed once per mode, counts once) */
     size_t n_omega;     /* real frequencies evaluated by the direct inversion */
     double omega_max, d_omega;
 } sy_response;

@@ -33,11 +33,15 @@ const char *sy_pole_kind_name(sy_pole_kind k)
     return (unsigned)k < 3 ? names[k] : "?";
 }
 
+int sy_pole_same(const sy_pole *a, const sy_pole *b)
+{
+    return a->kind == b->kind && cabs(a->omega - b->omega) <= 1e-6 * cabs(b->omega);
+}
+
 int sy_pole_repeats(const sy_pole_set *set, size_t i)
 {
-    const sy_pole *q = &set->poles[i];
     for (size_t k = 0; k < i; k++)
-        if (set->poles[k].kind == q->kind && cabs(set->poles[k].omega - q->omega) <= 1e-6 * cabs(q->omega))
+        if (sy_pole_same(&set->poles[k], &set->poles[i]))
             return 1;
     return 0;
 }
@@ -298,6 +302,16 @@ static size_t add_poles(sy_pole_set *set, size_t earlier, const syi_nep_eig *eig
     return repeated;
 }
 
+/* The same truncation as the run, but the body solves to 1e-9: the float chooses its
+ * exterior modes per frequency from the tolerance, and the contour integrals, the polish
+ * and the residues need T analytic well below the accuracy asked of the poles. */
+void syi_poles_model(const sy_model *m, sy_model *mt)
+{
+    *mt = *m;
+    sy_hydro_truncation(m, m->devices, m->n_devices, &mt->orders, &mt->depth_modes);
+    mt->tolerance = fmin(m->tolerance, POLES_BODY_TOL);
+}
+
 int sy_poles_find(sy_pole_set **out, const sy_model *m, unsigned kinds, sy_error *err)
 {
     return sy_poles_find_progress(out, m, kinds, NULL, NULL, err);
@@ -322,12 +336,8 @@ int sy_poles_find_progress(sy_pole_set **out, const sy_model *m, unsigned kinds,
         return sy_error_set(err, SY_ENOMEM, "pole search");
     }
     set->count[0] = set->count[1] = set->count[2] = SY_POLES_NOT_SEARCHED;
-    /* The same truncation as the run, but the body solves to 1e-9: the float chooses its
-     * exterior modes per frequency from the tolerance, and the contour integrals and the
-     * polish need T analytic well below the accuracy asked of the poles. */
-    sy_model mt = *m;
-    sy_hydro_truncation(m, m->devices, m->n_devices, &mt.orders, &mt.depth_modes);
-    mt.tolerance = fmin(m->tolerance, POLES_BODY_TOL);
+    sy_model mt;
+    syi_poles_model(m, &mt);
     rc = sy_hydro_plan_create(&plan, &mt, m->devices, m->n_devices, err);
     if (rc == SY_OK)
         rc = sy_array_work_alloc(&work, plan, err);

@@ -126,6 +126,9 @@ double syi_ellipse_radius(const syi_ellipse *c, double complex omega);
 struct sy_model;
 typedef struct syi_imp syi_imp;
 
+/* The model the pole search evaluates Z on (array_poles.c): the run's truncation, body
+ * solves to 1e-9. */
+void syi_poles_model(const struct sy_model *m, struct sy_model *mt);
 /* with_pto: 1 adds each device's PTO damping and stiffness on its PTO dof (heave). */
 int syi_imp_create(syi_imp **out, const struct sy_model *model, int with_pto, sy_error *err);
 void syi_imp_free(syi_imp *imp);
@@ -143,3 +146,11 @@ const double *syi_imp_mass(const syi_imp *imp);
 /* B_pto + B_visc per dof (diagonal, [n_dof]); body index and mode (1..5) of dof d. */
 const double *syi_imp_damping(const syi_imp *imp);
 void syi_imp_dof(const syi_imp *imp, size_t d, int *body, int *mode);
+
+/* Residue of Z^-1 at the motion pole ps->poles[i] (R: n_dof x n_dof row-major): with the
+ * entries of ps that are the same pole (sy_pole_same) and their independent modes
+ * V = [v_1 .. v_r], R = V (V^T Z' V)^-1 V^T (response.h); Z' by a Cauchy integral on a
+ * circle that keeps clear of the scattering poles in ps. z: 2 n^2 scratch. */
+struct sy_pole_set;
+int syi_pole_residue(syi_imp *imp, const struct sy_pole_set *ps, size_t i, double complex *R, double complex *z,
+                     sy_error *err);

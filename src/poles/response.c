@@ -12,8 +12,17 @@
 #include <stdlib.h>
 #include <string.h>
 
-#define DERIV_POINTS 8       /* Cauchy-circle derivative: exact for degree < 8 */
-#define DERIV_RADIUS 0.02    /* relative to |omega_p|: far from omega = 0 (branch point) */
+/* Z' at a pole by the Cauchy integral on a circle: 8 points make the error
+ * ~ (radius / R)^8, R the distance to the nearest singularity of Z. Z itself has poles:
+ * the fixed array's scattering resonances (Z_rad = Z_iso - F has them), which sit near
+ * motion poles (0.006-0.02 rad/s in the demo, where 0.02 |omega_p| put them inside the
+ * circle and made the residues wrong by orders of magnitude). So the radius is
+ * 2e-3 |omega_p| and at most a quarter of the distance to the nearest scattering pole
+ * of the set ((1/4)^8 = 2e-5); the evaluation noise of Z (the body tolerance, 1e-9)
+ * over that radius stays ~1e-6 of Z'. */
+#define DERIV_POINTS 8
+#define DERIV_RADIUS 2e-3    /* relative to |omega_p| */
+#define DERIV_SHARE 0.25     /* of the distance to the nearest scattering pole */
 #define DEFAULT_OMAX_FACTOR 5.0 /* heave response past 5 omega_r: the closed-form tail / omega^-4 */
 #define DEFAULT_OMAX_MIN 5.0 /* rad/s */
 #define DEFAULT_DW_PER_GAMMA 12.0  /* Filon error ~ (d_omega / gamma)^2 / 8 ~ 1e-3 */
@@ -88,45 +97,86 @@ static int check_settings(const sy_response_settings *s, const sy_model *m, sy_e
     return SY_OK;
 }
 
-/* Pole part: coefficient c_p (vector) so that x(t) = 2 Re sum_p c_p e^{-i omega_p t}. */
+#define MAX_MULT 4
+int syi_pole_residue(syi_imp *imp, const sy_pole_set *ps, size_t i, double complex *R, double complex *z,
+                     sy_error *err)
+{
+    size_t n = syi_imp_n_dof(imp);
+    double complex *dz = z + n * n;
+    const sy_pole *p = &ps->poles[i];
+    if (p->kind != SY_POLE_MOTION || p->mode == NULL || ps->n_dof != n)
+        return sy_error_set(err, SY_EINVAL, "residue: pole %zu is not a motion pole with a mode of %zu dofs", i, n);
+    const double complex *v[MAX_MULT] = {p->mode};
+    size_t r = 1;
+    for (size_t j = 0; j < ps->n && r < MAX_MULT; j++)
+        if (j != i && sy_pole_same(&ps->poles[j], p) && ps->poles[j].mode != NULL)
+            v[r++] = ps->poles[j].mode;
+    /* Z'(omega_p) = (1 / 2 pi i) oint Z(w) / (w - omega_p)^2 dw on a circle: the mean of
+     * Z(omega_p + rad e^{i theta}) e^{-i theta} / rad over equally spaced theta. */
+    double rad = DERIV_RADIUS * cabs(p->omega);
+    for (size_t j = 0; j < ps->n; j++)
+        if (ps->poles[j].kind == SY_POLE_SCATTERING)
+            rad = fmin(rad, DERIV_SHARE * cabs(ps->poles[j].omega - p->omega));
+    memset(dz, 0, n * n * sizeof *dz);
+    for (size_t k = 0; k < DERIV_POINTS; k++) {
+        double complex e = cexp(I * 2 * M_PI * (double)k / DERIV_POINTS);
+        int rc = syi_imp_eval(imp, p->omega + rad * e, z, NULL, err);
+        if (rc != SY_OK)
+            return sy_error_prefix(err, "pole %g%+gi rad/s: derivative", creal(p->omega), cimag(p->omega)), rc;
+        for (size_t j = 0; j < n * n; j++)
+            dz[j] += z[j] / (e * rad * DERIV_POINTS);
+    }
+    /* S = V^T Z' V (r x r, row-major); its inverse column by column: R = V S^-1 V^T */
+    double complex S[MAX_MULT * MAX_MULT], Si[MAX_MULT * MAX_MULT];
+    lapack_int piv[MAX_MULT];
+    for (size_t a = 0; a < r; a++)
+        for (size_t b = 0; b < r; b++) {
+            double complex acc = 0;
+            for (size_t x = 0; x < n; x++)
+                for (size_t y = 0; y < n; y++)
+                    acc += v[a][x] * dz[x * n + y] * v[b][y];
+            S[a * r + b] = acc;
+            Si[a * r + b] = a == b;
+        }
+    lapack_int info = LAPACKE_zgesv(LAPACK_ROW_MAJOR, (lapack_int)r, (lapack_int)r, S, (lapack_int)r, piv, Si,
+                                    (lapack_int)r);
+    if (info != 0)
+        return sy_error_set(err, SY_ESINGULAR, "pole %g%+gi rad/s: V^T Z' V of its %zu modes singular (%d)",
+                            creal(p->omega), cimag(p->omega), r, (int)info);
+    for (size_t x = 0; x < n; x++)
+        for (size_t y = 0; y < n; y++) {
+            double complex acc = 0;
+            for (size_t a = 0; a < r; a++)
+                for (size_t b = 0; b < r; b++)
+                    acc += v[a][x] * Si[a * r + b] * v[b][y];
+            R[x * n + y] = acc;
+        }
+    return SY_OK;
+}
+
+/* Pole part: coefficient c_p (vector) so that x(t) = 2 Re sum_p c_p e^{-i omega_p t}, one
+ * per distinct pole: c = R y (syi_pole_residue) with y = -K0 x0 / omega_p (decay) or
+ * -i F(omega_p) e_b (pulse). z: 3 n^2 scratch. */
 static int pole_terms(syi_imp *imp, const sy_pole_set *ps, const sy_response_settings *s, size_t eb,
                       double complex *coef, double complex *wp, size_t *np, double complex *z, sy_error *err)
 {
     size_t n = syi_imp_n_dof(imp);
     const double *k0 = syi_imp_k0(imp);
-    double complex *dz = z + n * n;
+    double complex *R = z + 2 * n * n;
     *np = 0;
     for (size_t i = 0; i < ps->n; i++) {
         const sy_pole *p = &ps->poles[i];
-        if (p->kind != SY_POLE_MOTION || p->mode == NULL || !(creal(p->omega) > 0))
+        if (p->kind != SY_POLE_MOTION || p->mode == NULL || !(creal(p->omega) > 0) || sy_pole_repeats(ps, i))
             continue;
-        /* Z'(omega_p) = (1 / 2 pi i) oint Z(w) / (w - omega_p)^2 dw on a circle: the mean of
-         * Z(omega_p + r e^{i theta}) e^{-i theta} / r over equally spaced theta. */
-        double r = DERIV_RADIUS * cabs(p->omega);
-        memset(dz, 0, n * n * sizeof *dz);
-        for (size_t k = 0; k < DERIV_POINTS; k++) {
-            double complex e = cexp(I * 2 * M_PI * (double)k / DERIV_POINTS);
-            int rc = syi_imp_eval(imp, p->omega + r * e, z, NULL, err);
-            if (rc != SY_OK)
-                return sy_error_prefix(err, "pole %g%+gi rad/s: derivative", creal(p->omega), cimag(p->omega)), rc;
-            for (size_t j = 0; j < n * n; j++)
-                dz[j] += z[j] / (e * r * DERIV_POINTS);
-        }
-        const double complex *v = p->mode;
-        double complex den = 0, proj = 0;
-        for (size_t a = 0; a < n; a++)
-            for (size_t b = 0; b < n; b++)
-                den += v[a] * dz[a * n + b] * v[b];
-        double complex f;
-        if (s->kind == SY_RESPONSE_DECAY) {
-            for (size_t a = 0; a < n; a++)
-                proj += v[a] * k0[a * n + eb];
-            f = -proj * s->amplitude / (p->omega * den);
-        } else {
-            f = -I * v[eb] * pulse_spectrum(s->amplitude, s->duration, p->omega) / den;
-        }
-        for (size_t a = 0; a < n; a++)
-            coef[*np * n + a] = f * v[a];
+        int rc = syi_pole_residue(imp, ps, i, R, z, err);
+        if (rc != SY_OK)
+            return rc;
+        double complex fp = s->kind == SY_RESPONSE_PULSE ? pulse_spectrum(s->amplitude, s->duration, p->omega) : 0;
+        for (size_t x = 0; x < n; x++)
+            coef[*np * n + x] = s->kind == SY_RESPONSE_DECAY ? 0 : -I * R[x * n + eb] * fp;
+        for (size_t x = 0; x < n && s->kind == SY_RESPONSE_DECAY; x++)
+            for (size_t y = 0; y < n; y++)
+                coef[*np * n + x] -= R[x * n + y] * k0[y * n + eb] * s->amplitude / p->omega;
         wp[*np] = p->omega;
         (*np)++;
     }
@@ -162,13 +212,23 @@ int sy_poles_response(sy_response **out, const sy_model *m, const sy_pole_set *p
     int rc = check_settings(s, m, err);
     if (rc != SY_OK)
         return rc;
-    syi_imp *imp = NULL;
+    /* The residues on the Z the poles were found on (syi_poles_model: body solves to
+     * 1e-9, so the Cauchy derivative's small circle does not amplify truncation noise),
+     * the direct inversion on the model's own Z (what a run computes). */
+    syi_imp *imp = NULL, *tight = NULL;
+    sy_model mt;
+    syi_poles_model(m, &mt);
     rc = syi_imp_create(&imp, m, 1, err);
-    if (rc != SY_OK)
-        return rc;
-    size_t n = syi_imp_n_dof(imp), eb = syi_imp_heave_dof(imp, s->body);
-    if (eb == SIZE_MAX) {
+    if (rc == SY_OK)
+        rc = syi_imp_create(&tight, &mt, 1, err);
+    if (rc != SY_OK) {
         syi_imp_free(imp);
+        return rc;
+    }
+    size_t n = syi_imp_n_dof(imp), eb = syi_imp_heave_dof(imp, s->body);
+    if (eb == SIZE_MAX || syi_imp_n_dof(tight) != n) {
+        syi_imp_free(imp);
+        syi_imp_free(tight);
         return sy_error_set(err, SY_EINPUT, "response body %zu (%s) has no heave dof", s->body, m->devices[s->body].name);
     }
     /* Grid from the poles: fine against the narrowest resonance, long past the highest. */
@@ -185,7 +245,7 @@ int sy_poles_response(sy_response **out, const sy_model *m, const sy_pole_set *p
 
     sy_response *r = calloc(1, sizeof *r);
     size_t nt = s->n_times, np = 0;
-    double complex *z = malloc((2 * n * n + 1) * sizeof *z), *zd = malloc((n * n + 1) * sizeof *zd);
+    double complex *z = malloc((3 * n * n + 1) * sizeof *z), *zd = malloc((n * n + 1) * sizeof *zd);
     double complex *g = malloc((nw + 1) * n * sizeof *g);
     double complex *coef = malloc((ps->n + 1) * n * sizeof *coef), *wp = malloc((ps->n + 1) * sizeof *wp);
     lapack_int *ipiv = malloc((n + 1) * sizeof *ipiv);
@@ -206,7 +266,7 @@ int sy_poles_response(sy_response **out, const sy_model *m, const sy_pole_set *p
             syi_imp_dof(imp, d, &r->dof_body[d], &r->dof_mode[d]);
         for (size_t j = 0; j < nt; j++)
             r->t[j] = s->t_end * (double)j / (double)(nt - 1);
-        rc = pole_terms(imp, ps, s, eb, coef, wp, &np, z, err);
+        rc = pole_terms(tight, ps, s, eb, coef, wp, &np, z, err);
         r->n_poles = np;
     }
     /* Direct: grid points 1..nw, then omega = 0 (its decay damping from point 1). */
@@ -255,6 +315,7 @@ int sy_poles_response(sy_response **out, const sy_model *m, const sy_pole_set *p
     free(wp);
     free(ipiv);
     syi_imp_free(imp);
+    syi_imp_free(tight);
     if (rc != SY_OK) {
         sy_response_free(r);
         return rc;

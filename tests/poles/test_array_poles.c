@@ -279,6 +279,65 @@ static void repeats(void)
                   "multiple pole: only the second listing of the same kind repeats");
 }
 
+/* Residues of Z^-1 at the grid's motion poles (the pole-expansion time response's terms):
+ * syi_pole_residue (V (V^T Z' V)^-1 V^T over a multiple pole's modes, Z' by an 8-point
+ * Cauchy circle kept clear of the scattering poles) against the definition,
+ * (1 / 2 pi i) oint Z^-1 d omega on a circle of radius 1/4 of the distance to the
+ * nearest other pole of the set, 16 points (trapezoid error ~ (1/4)^16). Tolerance 1e-4
+ * relative (Frobenius): the Cauchy derivative's own error is <= (1/4)^8 = 1.5e-5 by its
+ * radius rule, the body tolerance 1e-9 over the radius adds ~1e-6. Here every motion
+ * pole has a scattering pole (a pole of Z) within 0.006-0.021 rad/s: a derivative circle
+ * of 0.02 |omega_p| enclosed it, and summing v v^T / (v^T Z' v) over the two modes of a
+ * double pole is wrong unless V^T Z' V is diagonal. */
+static void grid_residues(const sy_model *m, const sy_pole_set *ps)
+{
+    sy_model mt;
+    syi_poles_model(m, &mt);
+    syi_imp *imp = NULL;
+    sy_error err = SY_ERROR_INIT;
+    if (!sy_check_ok(syi_imp_create(&imp, &mt, 1, &err), &err, "grid: impedance"))
+        return;
+    enum { ND = 9, K = 16 };
+    static double complex R[ND * ND], Rref[ND * ND], z[3 * ND * ND];
+    lapack_int piv[ND];
+    size_t tested = 0;
+    for (size_t i = 0; i < ps->n && syi_imp_n_dof(imp) == ND; i++) {
+        const sy_pole *p = &ps->poles[i];
+        if (p->kind != SY_POLE_MOTION || sy_pole_repeats(ps, i))
+            continue;
+        if (!sy_check_ok(syi_pole_residue(imp, ps, i, R, z, &err), &err, "grid: residue"))
+            break;
+        double d = INFINITY;
+        for (size_t j = 0; j < ps->n; j++)
+            if (!sy_pole_same(&ps->poles[j], p) || ps->poles[j].kind != p->kind)
+                d = fmin(d, cabs(ps->poles[j].omega - p->omega));
+        double rho = 0.25 * d;
+        memset(Rref, 0, sizeof Rref);
+        int ok = 1;
+        for (size_t k = 0; k < K && ok; k++) {
+            double complex e = cexp(I * 2 * M_PI * (double)k / K);
+            ok = syi_imp_eval(imp, p->omega + rho * e, z, NULL, &err) == SY_OK;
+            /* Z^-1: solve Z X = I */
+            double complex *X = z + ND * ND;
+            for (size_t a = 0; a < ND * ND; a++)
+                X[a] = (a / ND) == (a % ND);
+            ok = ok && LAPACKE_zgesv(LAPACK_ROW_MAJOR, ND, ND, z, ND, piv, X, ND) == 0;
+            for (size_t a = 0; ok && a < ND * ND; a++)
+                Rref[a] += X[a] * rho * e / K;
+        }
+        if (!sy_check_true(ok, "grid: Z^-1 on the circle: %s", err.msg))
+            break;
+        double num = 0, den = 0;
+        for (size_t a = 0; a < ND * ND; a++)
+            num += pow(cabs(R[a] - Rref[a]), 2), den += pow(cabs(Rref[a]), 2);
+        sy_check_true(sqrt(num / den) <= 1e-4, "grid: residue at %.6f%+.6fi (circle 1/4 of %.4f rad/s): %.2e <= 1e-4",
+                      creal(p->omega), cimag(p->omega), d, sqrt(num / den));
+        tested++;
+    }
+    sy_check_true(tested >= 2, "grid: residues checked at %zu distinct motion poles", tested);
+    syi_imp_free(imp);
+}
+
 /* Count = found near the contour, in the region where it once failed: the 3 x 3 grid
  * 40 m apart of the demo (INVENTED layout; truncation for 0.25..2.5 rad/s at tolerance
  * 1e-4, PTO 2e5 N s/m), motion and scattering families, region 1.15..1.45 x -0.05. The
@@ -327,6 +386,7 @@ static void grid_near_contour(void)
         }
     }
     sy_check_true(doubles >= 1, "grid: the square layout's double motion poles are listed twice (%zu)", doubles);
+    grid_residues(&m, ps);
     sy_pole_set_free(ps);
 }
 
