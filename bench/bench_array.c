@@ -8,7 +8,7 @@
  * Then the demo-like geometry (INVENTED: floats a = 5 m, d = 4 m, 40 m apart in 50 m of
  * water, tolerance 1e-4, frequencies 0.25..2.5 rad/s) at the automatic truncation of the
  * hydro module, with the per-mode angular truncation (what a run gets) and without it
- * (2M+1 orders in every kept depth mode): N = 100 per frequency, and the 3 x 3 sweep. */ 
+ * (2M+1 orders in every kept depth mode): N = 100 per frequency, and the 3 x 3 sweep. */
 #include "array/array_impl.h"
 #include "float_model.h"
 #include "swellyield/array.h"

@@ -93,9 +93,6 @@ def probe_child(path):
         head = b[0]
         if head.startswith("Process terminating") or " lost in loss record " in head:
             continue
-        if head.startswith(("If you believe", "overflow in", "possible), ", "main thread stack",
-                            "The main thread stack")):
-            continue
         if not any("syi_nc_open" in l for l in b):
             return False
     return True

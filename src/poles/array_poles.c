@@ -13,6 +13,7 @@
 #include <float.h>
 #include <lapacke.h>
 #include <math.h>
+#include <stdint.h>
 #include <stdlib.h>
 #include <string.h>
 
@@ -483,16 +484,16 @@ int sy_poles_find_progress(sy_pole_set **out, const sy_model *m, unsigned kinds,
     }
     /* Scattering resonances: body-wise mode shapes from the null vectors; the two entries
      * of a double zero (consecutive, add_poles) get two independent ones. */
-    double complex prev_w = NAN;
+    size_t first = SIZE_MAX; /* the previous scattering pole, if it may start a pair */
     for (size_t i = 0; rc == SY_OK && i < set->n; i++) {
         if (set->poles[i].kind != SY_POLE_SCATTERING || nd != m->n_devices)
             continue;
-        double complex w = set->poles[i].omega;
-        int second = cabs(w - prev_w) <= SAME_POLE * cabs(w);
+        int second = first != SIZE_MAX && sy_pole_same(&set->poles[first], &set->poles[i]);
         if (second)
             memcpy(firstv, nullv, nu * sizeof *nullv);
-        rc = scattering_mode(&sh, w, nullv, second ? firstv : NULL, set->modes + i * nd, m->n_devices, err);
-        prev_w = second ? NAN : w;
+        rc = scattering_mode(&sh, set->poles[i].omega, nullv, second ? firstv : NULL, set->modes + i * nd,
+                             m->n_devices, err);
+        first = second ? SIZE_MAX : i;
     }
     set->evaluations = sh.evaluations;
     int mode_rows = nd == m->n_devices; /* scattering modes are per body: stored when one dof per body */

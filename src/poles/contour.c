@@ -270,7 +270,8 @@ static int independent(const double complex *a, const double complex *b, size_t 
 
 /* Polish candidate lambda (scaled variable) and keep it if inside and new. With
  * rescue != 0 (a second pass over estimates whose polish stalled, matrix problems) start
- * at the nearest eigenvalue found within RESCUE_REL rho instead (none: skip). *stalled
+ * at the nearest eigenvalue found within RESCUE_REL rho instead (none, or no residue-
+ * isolating bb: skip, so a rescue never repeats the first polish). *stalled
  * (may be NULL) is set when the polish found no eigenvalue near the estimate. */
 static int add_candidate(const syi_nep *p, const syi_ellipse *c, double rho, const syi_nep_settings *st,
                          double complex lam, double complex *vv, const double complex *bb,
@@ -490,7 +491,7 @@ static int beyn(pstate *s, const syi_ellipse *c, double rho, double wsum, const 
             }
         }
         int stalled = 0;
-        rc = add_candidate(p, c, rho, st, lam[e], vv, use_b ? bb : NULL, xx, eig, max_eig, res, rescue && use_b,
+        rc = add_candidate(p, c, rho, st, lam[e], vv, use_b ? bb : NULL, xx, eig, max_eig, res, rescue,
                            rescue ? NULL : &stalled, err);
         stall[e] = (unsigned char)stalled;
     }

@@ -155,8 +155,8 @@ int syi_pole_residue(syi_imp *imp, const sy_pole_set *ps, size_t i, double compl
 }
 
 /* Pole part: coefficient c_p (vector) so that x(t) = 2 Re sum_p c_p e^{-i omega_p t}, one
- * per distinct pole: c = R y (syi_pole_residue) with y = -K0 x0 / omega_p (decay) or
- * -i F(omega_p) e_b (pulse). z: 3 n^2 scratch. */
+ * per distinct pole: c = R y (syi_pole_residue) with y = -K0 e_b x0 / omega_p (decay) or
+ * -i F(omega_p) e_b (pulse). z: 3 n^2 scratch (y in its first n after the residue). */
 static int pole_terms(syi_imp *imp, const sy_pole_set *ps, const sy_response_settings *s, size_t eb,
                       double complex *coef, double complex *wp, size_t *np, double complex *z, sy_error *err)
 {
@@ -171,12 +171,17 @@ static int pole_terms(syi_imp *imp, const sy_pole_set *ps, const sy_response_set
         int rc = syi_pole_residue(imp, ps, i, R, z, err);
         if (rc != SY_OK)
             return rc;
-        double complex fp = s->kind == SY_RESPONSE_PULSE ? pulse_spectrum(s->amplitude, s->duration, p->omega) : 0;
+        double complex *y = z;
         for (size_t x = 0; x < n; x++)
-            coef[*np * n + x] = s->kind == SY_RESPONSE_DECAY ? 0 : -I * R[x * n + eb] * fp;
-        for (size_t x = 0; x < n && s->kind == SY_RESPONSE_DECAY; x++)
-            for (size_t y = 0; y < n; y++)
-                coef[*np * n + x] -= R[x * n + y] * k0[y * n + eb] * s->amplitude / p->omega;
+            y[x] = s->kind == SY_RESPONSE_DECAY ? -k0[x * n + eb] * s->amplitude / p->omega : 0;
+        if (s->kind == SY_RESPONSE_PULSE)
+            y[eb] = -I * pulse_spectrum(s->amplitude, s->duration, p->omega);
+        for (size_t x = 0; x < n; x++) {
+            double complex acc = 0;
+            for (size_t c = 0; c < n; c++)
+                acc += R[x * n + c] * y[c];
+            coef[*np * n + x] = acc;
+        }
         wp[*np] = p->omega;
         (*np)++;
     }
@@ -229,6 +234,9 @@ int sy_poles_response(sy_response **out, const sy_model *m, const sy_pole_set *p
     if (eb == SIZE_MAX || syi_imp_n_dof(tight) != n) {
         syi_imp_free(imp);
         syi_imp_free(tight);
+        if (eb != SIZE_MAX)
+            return sy_error_set(err, SY_EINVAL, "response: the pole search's model has %zu dofs, the run's %zu",
+                                syi_imp_n_dof(tight), n);
         return sy_error_set(err, SY_EINPUT, "response body %zu (%s) has no heave dof", s->body, m->devices[s->body].name);
     }
     /* Grid from the poles: fine against the narrowest resonance, long past the highest. */
