@@ -6,13 +6,7 @@
 # the -o target keeps its earlier content and no staging folder (*.partial-*) or temporary
 # file (.*.tmp-*) remains. This checks our own contract (DEVELOPERS.md), not outside data.
 # It extends tests/cli/test_errors.sh and tests/model/test_load.c without repeating them.
-set -u
-prog=$1
-src=$2
-py=${SY_PYTHON:-/usr/bin/python3}
-tmp=$(mktemp -d)
-trap 'rm -rf "$tmp"' EXIT
-pass=0 fail=0
+source "$2/tests/cli/common.sh"
 ncase=0
 
 # Earlier outputs that a failing command must leave as they are: a run's folder and a file.
@@ -328,5 +322,4 @@ bad "hindcast: bad --hs-step (sea bin)" sea "--hs-step" -- "$prog" sea bin "$hin
 bad "hindcast: output is a directory (sea bin)" sea "$tmp/out" -- "$prog" sea bin "$hindcast" -o "$tmp/out"
 
 echo "$ncase cases"
-echo "$pass passed, $fail failed"
-[ "$fail" -eq 0 ] && [ "$ncase" -ge 50 ]
+passed && [ "$ncase" -ge 50 ]

@@ -2,12 +2,7 @@
 # The program's contract for bad input and usage: exit code 2, one line on stderr of the
 # form "swellyield: <verb>: <message>" naming the file/line or option, and nothing
 # written. Our own contract (DEVELOPERS.md), not an outside reference.
-set -u
-prog=$1
-src=$2
-tmp=$(mktemp -d)
-trap 'rm -rf "$tmp"' EXIT
-pass=0 fail=0
+source "$2/tests/cli/common.sh"
 
 check() { # name expected_exit expected_substring -- command...
     local name=$1 want=$2 text=$3
@@ -71,5 +66,4 @@ check "hydro: missing -o" 2 "missing -o FILE.nc" -- "$prog" hydro "$tmp/good.ini
 check "sea: unknown action" 2 "unknown action 'plot'" -- "$prog" sea plot x.nc
 check "sea: spectrum needs one period" 2 "exactly one of --tp, --te" -- "$prog" sea spectrum --hs 2 --tp 8 --te 7
 
-echo "$pass passed, $fail failed"
-[ "$fail" -eq 0 ]
+passed

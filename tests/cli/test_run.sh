@@ -3,17 +3,9 @@
 # site): the files of outputs.h exist with the summary keys the issue names, a re-run
 # from the cache reproduces summary.json byte for byte, a failed run leaves the earlier
 # outputs untouched, and bad input (zero total occurrence) writes nothing.
-set -u
-prog=$1
-src=$2
-py=${SY_PYTHON:-/usr/bin/python3}
-tmp=$(mktemp -d)
-trap 'rm -rf "$tmp"' EXIT
-pass=0 fail=0
-ok() { if [ "$1" -eq 0 ]; then echo "PASS: $2"; pass=$((pass + 1)); else echo "FAIL: $2"; fail=$((fail + 1)); fi; }
+source "$2/tests/cli/common.sh"
 
-source "$src/tests/cli/small_project.sh"
-small_project "$tmp" "$src"
+small_project "$tmp"
 
 "$prog" run "$tmp/p.ini" -o "$tmp/out" --quiet >"$tmp/stdout" 2>"$tmp/stderr"
 ok $? "run exits 0"
@@ -82,5 +74,4 @@ if grep -q '^motion,' "$tmp/res/poles.csv"; then
     grep -q 'time_response.png' "$tmp/res/report.md"; ok $? "report.md links the time response"
 fi
 
-echo "$pass passed, $fail failed"
-[ "$fail" -eq 0 ]
+passed
