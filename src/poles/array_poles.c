@@ -484,9 +484,10 @@ int sy_poles_find_progress(sy_pole_set **out, const sy_model *m, unsigned kinds,
     }
     /* Scattering resonances: body-wise mode shapes from the null vectors; the two entries
      * of a double zero (consecutive, add_poles) get two independent ones. */
+    int mode_rows = nd == m->n_devices; /* scattering modes are per body: stored when one dof per body */
     size_t first = SIZE_MAX; /* the previous scattering pole, if it may start a pair */
-    for (size_t i = 0; rc == SY_OK && i < set->n; i++) {
-        if (set->poles[i].kind != SY_POLE_SCATTERING || nd != m->n_devices)
+    for (size_t i = 0; rc == SY_OK && mode_rows && i < set->n; i++) {
+        if (set->poles[i].kind != SY_POLE_SCATTERING)
             continue;
         int second = first != SIZE_MAX && sy_pole_same(&set->poles[first], &set->poles[i]);
         if (second)
@@ -496,7 +497,6 @@ int sy_poles_find_progress(sy_pole_set **out, const sy_model *m, unsigned kinds,
         first = second ? SIZE_MAX : i;
     }
     set->evaluations = sh.evaluations;
-    int mode_rows = nd == m->n_devices; /* scattering modes are per body: stored when one dof per body */
     if (rc == SY_OK) {
         /* Sort with the mode storage. */
         sy_pole *sorted = malloc(set->n * sizeof *sorted + 1);

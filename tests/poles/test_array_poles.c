@@ -309,7 +309,7 @@ static void grid_residues(const sy_model *m, const sy_pole_set *ps)
             break;
         double d = INFINITY;
         for (size_t j = 0; j < ps->n; j++)
-            if (!sy_pole_same(&ps->poles[j], p) || ps->poles[j].kind != p->kind)
+            if (!sy_pole_same(&ps->poles[j], p))
                 d = fmin(d, cabs(ps->poles[j].omega - p->omega));
         double rho = 0.25 * d;
         memset(Rref, 0, sizeof Rref);
